@@ -1,0 +1,25 @@
+import { randomUUID } from 'node:crypto';
+import type { EntitySchemaMetadata, OptionalProps } from '@mikro-orm/core';
+
+/** Fields every entity carries. */
+export interface Base {
+  /** Filled on create; optional in em.create(). */
+  [OptionalProps]?: 'id' | 'createdAt' | 'updatedAt';
+  id: string;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+/** Shared property definitions for the base fields (spread into each schema). */
+export const baseProperties = {
+  id: { type: 'uuid', primary: true, onCreate: () => randomUUID() },
+  createdAt: { type: 'Date', columnType: 'timestamptz', onCreate: () => new Date() },
+  updatedAt: { type: 'Date', columnType: 'timestamptz', onCreate: () => new Date(), onUpdate: () => new Date() },
+} satisfies EntitySchemaMetadata<Base>['properties'];
+
+export const ROLES = ['coordinator', 'lead', 'cook'] as const;
+export type Role = (typeof ROLES)[number];
+export const LOCALES = ['en', 'fr'] as const;
+export type Locale = (typeof LOCALES)[number];
+export const TEMPERATURE_UNITS = ['C', 'F'] as const;
+export type TemperatureUnit = (typeof TEMPERATURE_UNITS)[number];

@@ -1,0 +1,30 @@
+import { OrganisationSchema } from './organisation';
+import { KitchenSchema } from './kitchen';
+import { UserSchema } from './user';
+import { MembershipSchema } from './membership';
+import { InvitationSchema } from './invitation';
+import { PasswordResetSchema } from './password-reset';
+import { AuditEventSchema } from './audit-event';
+import { LoginAttemptSchema } from './login-attempt';
+
+export * from './base';
+export * from './organisation';
+export * from './kitchen';
+export * from './user';
+export * from './membership';
+export * from './invitation';
+export * from './password-reset';
+export * from './audit-event';
+export * from './login-attempt';
+
+/** Every entity, listed explicitly for mikro-orm.config.ts. */
+export const allEntities = [
+  OrganisationSchema,
+  KitchenSchema,
+  UserSchema,
+  MembershipSchema,
+  InvitationSchema,
+  PasswordResetSchema,
+  AuditEventSchema,
+  LoginAttemptSchema,
+];

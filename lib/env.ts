@@ -1,0 +1,47 @@
+import { z } from 'zod';
+
+/**
+ * Environment, validated once. Every variable has a development default except SESSION_SECRET in
+ * production. A missing or malformed variable is named in the error.
+ */
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  DATABASE_URL: z.string().url().default('postgres://postgres@127.0.0.1:54329/hearthcast'),
+  APP_URL: z.string().url().default('http://127.0.0.1:3000'),
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
+  SMTP_URL: z.string().default('smtp://127.0.0.1:2525'),
+  MAIL_FROM: z.string().default('Hearthcast <no-reply@example.org>'),
+  /** Where the local mail fake keeps messages (and where the dev mailbox page reads them). */
+  MAILBOX_DIR: z.string().default('.var/mail'),
+  /** Dev-only pages (mailbox, push deliveries). Off by default in production. */
+  DEV_TOOLS: z.enum(['0', '1']).optional(),
+  /** Cookie Secure flag: on when APP_URL is https unless set. */
+  COOKIE_SECURE: z.enum(['0', '1']).optional(),
+});
+
+export type Env = z.infer<typeof schema> & { sessionSecret: string; devTools: boolean; cookieSecure: boolean };
+
+let cached: Env | null = null;
+
+/** Development-only fallback secret, so a fresh clone signs in without setup. Never used in production. */
+const DEV_SECRET = 'hearthcast-development-secret-do-not-use-in-production';
+
+export function getEnv(): Env {
+  if (cached) return cached;
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid environment:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET && process.env.HEARTHCAST_DEMO !== '1') {
+    throw new Error('Invalid environment:\nSESSION_SECRET: required in production (32+ characters)');
+  }
+  cached = {
+    ...e,
+    sessionSecret: e.SESSION_SECRET ?? DEV_SECRET,
+    devTools: e.DEV_TOOLS ? e.DEV_TOOLS === '1' : e.NODE_ENV !== 'production' || process.env.HEARTHCAST_DEMO === '1',
+    cookieSecure: e.COOKIE_SECURE ? e.COOKIE_SECURE === '1' : e.APP_URL.startsWith('https:'),
+  };
+  return cached;
+}

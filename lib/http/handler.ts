@@ -1,0 +1,99 @@
+import { NextResponse, type NextRequest } from 'next/server';
+import { z, ZodError, type ZodType } from 'zod';
+import { HttpError, badRequest, tooLarge } from './errors';
+
+export interface ErrorBody {
+  error: { code: string; message: string; fields?: Record<string, string> };
+}
+
+/** Maps zod issues to { "a.b": "message" } so a form can show each next to its field. */
+export function zodFields(err: ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of err.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '(body)';
+    if (issue.code === 'unrecognized_keys') {
+      for (const k of issue.keys) fields[[...issue.path, k].join('.')] = 'Unknown field; remove it.';
+      continue;
+    }
+    fields[key] ??= issue.message;
+  }
+  return fields;
+}
+
+export function errorResponse(err: unknown): NextResponse<ErrorBody> {
+  if (err instanceof HttpError) {
+    return NextResponse.json(
+      { error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } },
+      { status: err.status, headers: err.headers },
+    );
+  }
+  if (err instanceof ZodError) {
+    const fields = zodFields(err);
+    const first = Object.entries(fields)[0];
+    const message = first ? `Check the field "${first[0]}": ${first[1]}` : 'The request is not valid.';
+    return NextResponse.json({ error: { code: 'invalid', message, fields } }, { status: 422 });
+  }
+  console.error('[api] unexpected error', err);
+  return NextResponse.json(
+    { error: { code: 'internal', message: 'Something went wrong on our side. Try again; if it persists, tell your coordinator.' } },
+    { status: 500 },
+  );
+}
+
+type Ctx<P> = { params: Promise<P> };
+
+/** Wraps a route handler: every thrown HttpError/ZodError becomes the one error shape. */
+export function route<P = Record<string, string>>(
+  fn: (req: NextRequest, ctx: Ctx<P>) => Promise<Response>,
+): (req: NextRequest, ctx: Ctx<P>) => Promise<Response> {
+  return async (req, ctx) => {
+    try {
+      return await fn(req, ctx);
+    } catch (err) {
+      return errorResponse(err);
+    }
+  };
+}
+
+export const DEFAULT_BODY_LIMIT = 256 * 1024;
+
+/** Reads the body as text under a size limit (413 beyond it), without trusting Content-Length alone. */
+export async function readBodyText(req: Request, limitBytes = DEFAULT_BODY_LIMIT): Promise<string> {
+  const declared = Number(req.headers.get('content-length') ?? '0');
+  if (declared > limitBytes) throw tooLarge(limitBytes);
+  if (!req.body) return '';
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limitBytes) {
+      await reader.cancel();
+      throw tooLarge(limitBytes);
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks).toString('utf8');
+}
+
+/** Parses a JSON body and validates it; 400 for malformed JSON, 422 for a wrong shape, 413 when too large. */
+export async function parseJson<T extends ZodType>(req: Request, schema: T, limitBytes = DEFAULT_BODY_LIMIT): Promise<z.infer<T>> {
+  const text = await readBodyText(req, limitBytes);
+  if (!text.trim()) throw badRequest('The request body is empty; send a JSON object.');
+  let data: unknown;
+  try {
+    data = JSON.parse(text);
+  } catch {
+    throw badRequest('The request body is not valid JSON.');
+  }
+  return schema.parse(data);
+}
+
+/** Validates the query string against a schema (422 naming the parameter). */
+export function parseQuery<T extends ZodType>(req: NextRequest, schema: T): z.infer<T> {
+  return schema.parse(Object.fromEntries(req.nextUrl.searchParams.entries()));
+}
+
+export const json = <T>(data: T, init?: ResponseInit) => NextResponse.json(data, init);

@@ -1,0 +1,11 @@
+import type { MigrationObject } from '@mikro-orm/core';
+import { Migration20261202002824 } from '../migrations/Migration20261202002824';
+
+/**
+ * Migrations applied from code (start script, tests). Listed explicitly so they run without a
+ * TypeScript loader; add each new migration here (kept outside migrations/ so the CLI does not
+ * take this file for one).
+ */
+export const migrationsList: MigrationObject[] = [
+  { name: 'Migration20261202002824', class: Migration20261202002824 },
+];
