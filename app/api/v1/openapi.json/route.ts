@@ -1,0 +1,6 @@
+import { json, route } from '@/lib/http/handler';
+import { buildOpenApi } from '@/lib/openapi/registry';
+import { operations } from '@/lib/openapi/operations';
+import { getEnv } from '@/lib/env';
+
+export const GET = route(async () => json(buildOpenApi(operations, { version: '0.1.0', serverUrl: getEnv().APP_URL })));

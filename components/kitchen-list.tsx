@@ -1,0 +1,65 @@
+'use client';
+
+import Link from 'next/link';
+import { useFormatter, useTranslations } from 'next-intl';
+import { useEffect, useState } from 'react';
+import { apiFetch } from '@/lib/client/api';
+
+export interface KitchenSummary {
+  id: string;
+  name: string;
+  organisation: { id: string; name: string };
+  latitude: number;
+  longitude: number;
+  altitudeM: number;
+  timeZone: string;
+  role?: string;
+}
+
+/** Fetches the caller's kitchens from the API and shows them as cards, with an empty state. */
+export function KitchenList() {
+  const t = useTranslations('home');
+  const tc = useTranslations('common');
+  const format = useFormatter();
+  const [kitchens, setKitchens] = useState<KitchenSummary[] | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [now, setNow] = useState(() => new Date());
+
+  useEffect(() => {
+    apiFetch<{ kitchens: KitchenSummary[] }>('/api/v1/kitchens').then((r) => {
+      if (r.ok) setKitchens(r.data.kitchens);
+      else setError(r.error.status === 0 ? tc('offline') : r.error.message);
+    });
+    const timer = setInterval(() => setNow(new Date()), 60_000);
+    return () => clearInterval(timer);
+  }, [tc]);
+
+  if (error) return <p role="alert" className="text-ember-800">{error}</p>;
+  if (!kitchens) return <p aria-busy="true">{tc('loading')}</p>;
+  if (!kitchens.length) return <p className="card">{t('empty')}</p>;
+  return (
+    <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+      {kitchens.map((k) => (
+        <li key={k.id} className="card flex flex-col gap-2">
+          <h2 className="text-lg font-bold">
+            <Link href={`/kitchens/${k.id}`} className="hover:underline" aria-label={t('open', { name: k.name })}>
+              {k.name}
+            </Link>
+          </h2>
+          <p className="text-sm text-clay-700">{k.organisation.name}</p>
+          <p className="text-sm">
+            {t('location', {
+              lat: format.number(k.latitude, { maximumFractionDigits: 3 }),
+              lon: format.number(k.longitude, { maximumFractionDigits: 3 }),
+              alt: format.number(k.altitudeM, { maximumFractionDigits: 0 }),
+            })}
+          </p>
+          <p className="text-sm">
+            {tc('localTime')}: {format.dateTime(now, { timeZone: k.timeZone, hour: '2-digit', minute: '2-digit', weekday: 'short' })} ({k.timeZone})
+          </p>
+          {k.role && <p className="mt-auto w-fit rounded-full bg-tide-50 px-3 py-1 text-xs font-semibold text-tide-700">{tc(`roles.${k.role}` as 'roles.cook')}</p>}
+        </li>
+      ))}
+    </ul>
+  );
+}

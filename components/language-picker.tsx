@@ -1,0 +1,45 @@
+'use client';
+
+import { useLocale, useTranslations } from 'next-intl';
+import { useRouter } from 'next/navigation';
+import { useId, useTransition } from 'react';
+
+const NAMES = { en: 'English', fr: 'Français' } as const;
+
+/** Switches the interface language; saved in a cookie and, when signed in, on the account. */
+export function LanguagePicker({ signedIn }: { signedIn: boolean }) {
+  const t = useTranslations('common');
+  const locale = useLocale();
+  const router = useRouter();
+  const id = useId();
+  const [pending, start] = useTransition();
+  return (
+    <div className="flex items-center gap-2">
+      <label htmlFor={id} className="text-sm">
+        {t('language')}
+      </label>
+      <select
+        id={id}
+        className="rounded-md border border-clay-200 bg-white px-2 py-1 text-sm text-clay-900"
+        value={locale}
+        disabled={pending}
+        onChange={(e) => {
+          const next = e.target.value;
+          document.cookie = `hc_locale=${next}; path=/; max-age=31536000; samesite=lax`;
+          start(async () => {
+            if (signedIn) {
+              await fetch('/api/v1/me', { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ locale: next }) }).catch(() => undefined);
+            }
+            router.refresh();
+          });
+        }}
+      >
+        {Object.entries(NAMES).map(([code, name]) => (
+          <option key={code} value={code} lang={code}>
+            {name}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}

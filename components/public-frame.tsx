@@ -1,0 +1,21 @@
+import { LanguagePicker } from './language-picker';
+
+/** Frame for pages seen before signing in. */
+export function PublicFrame({ title, tagline, children }: { title: string; tagline: string; children: React.ReactNode }) {
+  return (
+    <main id="main" className="mx-auto flex min-h-screen max-w-md flex-col justify-center gap-6 px-4 py-8">
+      <div className="flex items-center justify-between">
+        <p className="flex items-center gap-2 text-xl font-bold">
+          <span aria-hidden="true" className="inline-block h-7 w-7 rounded-full bg-gradient-to-br from-amber-300 to-ember-600" />
+          Hearthcast
+        </p>
+        <LanguagePicker signedIn={false} />
+      </div>
+      <p className="text-clay-700">{tagline}</p>
+      <section className="card" aria-labelledby="page-title">
+        <h1 id="page-title" className="mb-4 text-2xl font-bold">{title}</h1>
+        {children}
+      </section>
+    </main>
+  );
+}

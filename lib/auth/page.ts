@@ -1,0 +1,13 @@
+import { redirect } from 'next/navigation';
+import { requireViewer, type Viewer } from './guard';
+import { HttpError } from '@/lib/http/errors';
+
+/** For server-rendered pages: the viewer, or a redirect to sign-in. */
+export async function getPageViewer(): Promise<Viewer> {
+  try {
+    return await requireViewer();
+  } catch (err) {
+    if (err instanceof HttpError && err.status === 401) redirect('/sign-in');
+    throw err;
+  }
+}

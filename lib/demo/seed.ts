@@ -1,0 +1,68 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { KitchenSchema, MembershipSchema, OrganisationSchema, UserSchema, type Kitchen, type Locale, type Organisation, type Role } from '@/entities';
+import { hashPassword } from '@/lib/auth/password';
+
+/**
+ * The demo scenario: an invented network of three community kitchens in sunny places (real
+ * coordinates, invented names and people; example.org addresses). Loaded only in demo mode.
+ */
+export const DEMO_PASSWORD = 'sunny-demo-2026';
+export const DEMO_ORG = 'Sunward Kitchens Network';
+
+export const DEMO_KITCHENS = [
+  { slug: 'baobab', name: 'Baobab Ridge School Kitchen', latitude: -6.163, longitude: 35.7516, altitudeM: 1120, timeZone: 'Africa/Dar_es_Salaam', locale: 'en' as Locale },
+  { slug: 'tamarind', name: 'Tamarind Court Shelter Canteen', latitude: 12.3714, longitude: -1.5197, altitudeM: 305, timeZone: 'Africa/Ouagadougou', locale: 'fr' as Locale },
+  { slug: 'saltbush', name: 'Saltbush Camp Canteen', latitude: 26.2389, longitude: 73.0243, altitudeM: 231, timeZone: 'Asia/Kolkata', locale: 'en' as Locale },
+] as const;
+
+const PEOPLE: Record<string, { lead: string; cooks: [string, string] }> = {
+  baobab: { lead: 'Neema Kisanga', cooks: ['Baraka Mollel', 'Zawadi Mrema'] },
+  tamarind: { lead: 'Awa Sawadogo', cooks: ['Issa Kaboré', 'Mariam Ouédraogo'] },
+  saltbush: { lead: 'Kavita Rathore', cooks: ['Mohan Bishnoi', 'Sunita Meghwal'] },
+};
+
+export interface DemoAccount {
+  email: string;
+  role: Role;
+  kitchen: string | null;
+  name: string;
+}
+
+export function demoAccounts(): DemoAccount[] {
+  const list: DemoAccount[] = [{ email: 'coordinator@example.org', role: 'coordinator', kitchen: null, name: 'Farida Okonjo' }];
+  for (const k of DEMO_KITCHENS) {
+    const p = PEOPLE[k.slug]!;
+    list.push({ email: `lead.${k.slug}@example.org`, role: 'lead', kitchen: k.slug, name: p.lead });
+    p.cooks.forEach((name, i) => list.push({ email: `cook${i + 1}.${k.slug}@example.org`, role: 'cook', kitchen: k.slug, name }));
+  }
+  return list;
+}
+
+/** Creates the demo organisation, kitchens and people if missing; returns what exists. Idempotent. */
+export async function seedDemo(em: EntityManager): Promise<{ organisation: Organisation; kitchens: Record<string, Kitchen>; created: boolean }> {
+  return em.transactional(async (tx) => {
+    const existing = await tx.findOne(OrganisationSchema, { name: DEMO_ORG });
+    if (existing) {
+      const ks = await tx.find(KitchenSchema, { organisation: existing });
+      const bySlug: Record<string, Kitchen> = {};
+      for (const d of DEMO_KITCHENS) {
+        const k = ks.find((x) => x.name === d.name);
+        if (k) bySlug[d.slug] = k;
+      }
+      return { organisation: existing, kitchens: bySlug, created: false };
+    }
+    const organisation = tx.create(OrganisationSchema, { name: DEMO_ORG });
+    const kitchens: Record<string, Kitchen> = {};
+    for (const d of DEMO_KITCHENS) {
+      const { slug, ...fields } = d;
+      kitchens[slug] = tx.create(KitchenSchema, { ...fields, organisation });
+    }
+    const passwordHash = await hashPassword(DEMO_PASSWORD);
+    for (const a of demoAccounts()) {
+      const kitchen = a.kitchen ? kitchens[a.kitchen]! : null;
+      const user = tx.create(UserSchema, { email: a.email, name: a.name, passwordHash, locale: kitchen?.locale ?? 'en', temperatureUnit: 'C' });
+      tx.create(MembershipSchema, { user, organisation, kitchen, role: a.role });
+    }
+    return { organisation, kitchens, created: true };
+  });
+}

@@ -1,0 +1,85 @@
+import { z, type ZodType } from 'zod';
+
+/** One documented operation; route modules register theirs so the document follows the code. */
+export interface Operation {
+  method: 'get' | 'post' | 'patch' | 'put' | 'delete';
+  path: string;
+  summary: string;
+  tag: string;
+  /** Roles allowed; empty = public. */
+  roles: string[];
+  body?: ZodType;
+  query?: ZodType;
+  /** Response schema of the success status, if JSON. */
+  response?: ZodType;
+  successStatus?: number;
+  errors?: number[];
+}
+
+const errorSchema = {
+  type: 'object',
+  required: ['error'],
+  properties: {
+    error: {
+      type: 'object',
+      required: ['code', 'message'],
+      properties: {
+        code: { type: 'string' },
+        message: { type: 'string', description: 'A sentence a person can act on.' },
+        fields: { type: 'object', additionalProperties: { type: 'string' }, description: 'Field path → message.' },
+      },
+    },
+  },
+} as const;
+
+const toSchema = (s: ZodType) => z.toJSONSchema(s, { io: 'input', unrepresentable: 'any', target: 'draft-2020-12' });
+
+/** Builds the OpenAPI 3.1 document from the operations. */
+export function buildOpenApi(operations: Operation[], info: { version: string; serverUrl: string }) {
+  const paths: Record<string, Record<string, unknown>> = {};
+  for (const op of operations) {
+    const params = [...op.path.matchAll(/\{(\w+)\}/g)].map((m) => ({ name: m[1], in: 'path', required: true, schema: { type: 'string', format: 'uuid' } }));
+    if (op.query) {
+      const q = toSchema(op.query) as { properties?: Record<string, unknown>; required?: string[] };
+      for (const [name, schema] of Object.entries(q.properties ?? {})) params.push({ name, in: 'query', required: q.required?.includes(name) ?? false, schema: schema as never });
+    }
+    const responses: Record<string, unknown> = {
+      [String(op.successStatus ?? 200)]: op.response
+        ? { description: 'Success', content: { 'application/json': { schema: toSchema(op.response) } } }
+        : { description: 'Success' },
+    };
+    for (const code of new Set([...(op.body ? [400, 413, 422] : []), ...(op.roles.length ? [401, 403, 404] : []), ...(op.errors ?? [])])) {
+      responses[String(code)] = { description: HTTP_TEXT[code] ?? 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } };
+    }
+    (paths[op.path] ??= {})[op.method] = {
+      summary: op.summary,
+      tags: [op.tag],
+      ...(op.roles.length ? { security: [{ session: [] }], description: `Roles: ${op.roles.join(', ')}.` } : { security: [] }),
+      ...(params.length ? { parameters: params } : {}),
+      ...(op.body ? { requestBody: { required: true, content: { 'application/json': { schema: toSchema(op.body) } } } } : {}),
+      responses,
+    };
+  }
+  return {
+    openapi: '3.1.0',
+    info: { title: 'Hearthcast API', version: info.version, description: 'Planning for community kitchens that cook on stored-heat solar cookers.' },
+    servers: [{ url: info.serverUrl }],
+    components: {
+      securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'hc_session', description: 'Set by POST /api/v1/session.' } },
+      schemas: { Error: errorSchema },
+    },
+    paths,
+  };
+}
+
+const HTTP_TEXT: Record<number, string> = {
+  400: 'Malformed request (e.g. not JSON)',
+  401: 'Not signed in',
+  403: 'Role does not allow this action',
+  404: 'Not found, or not visible to the caller',
+  409: 'Conflict',
+  410: 'Link expired or already used',
+  413: 'Body too large',
+  422: 'Invalid fields (see error.fields)',
+  429: 'Too many attempts (see Retry-After)',
+};

@@ -1,0 +1,30 @@
+#!/usr/bin/env bash
+# npm start: install what is missing, start PostgreSQL, migrate, load the demo, start the fakes,
+# the worker and the web server. Ctrl-C stops everything it started.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+source scripts/lib.sh
+
+export HEARTHCAST_DEMO="${HEARTHCAST_DEMO:-1}"
+export DATABASE_URL="${DATABASE_URL:-postgres://postgres@127.0.0.1:${PGPORT}/hearthcast}"
+export PORT="${PORT:-3000}"
+export APP_URL="${APP_URL:-http://127.0.0.1:${PORT}}"
+export NODE_ENV=production
+
+ensure_node_modules
+bash scripts/db.sh
+npx tsx scripts/migrate.ts
+if [ "$HEARTHCAST_DEMO" = "1" ]; then npx tsx scripts/seed.ts; fi
+ensure_build
+
+pids=()
+cleanup() { for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done; wait 2>/dev/null || true; }
+trap cleanup EXIT INT TERM
+
+if [ "${START_FAKES:-1}" = "1" ]; then
+  npx tsx scripts/fakes.ts & pids+=($!)
+fi
+npx tsx scripts/worker.ts & pids+=($!)
+npx next start -H 127.0.0.1 -p "$PORT" & pids+=($!)
+echo "[start] Hearthcast on ${APP_URL} (sign in with a demo account from the README)"
+wait -n "${pids[@]}"

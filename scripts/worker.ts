@@ -1,0 +1,14 @@
+/** The background worker: pg-boss queues on the app database. Stateless; run as many as you like. */
+import { startBoss } from '../lib/jobs/boss';
+import { registerWorkers } from '../lib/jobs/worker';
+
+const boss = await startBoss();
+await registerWorkers(boss);
+console.log('[worker] ready');
+
+const stop = async () => {
+  await boss.stop({ graceful: true, wait: true });
+  process.exit(0);
+};
+process.on('SIGINT', stop);
+process.on('SIGTERM', stop);
