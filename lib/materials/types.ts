@@ -37,4 +37,11 @@ export interface StorageMedium {
   recommendedMaxC: number;
   /** Sources of the numbers above: author, title, year, table or equation. */
   sources: string[];
+  /**
+   * Added (optional): supercooling reported for the material [K] — how far below the melting range it may cool
+   * before it solidifies. The enthalpy model ignores it (no hysteresis); the planner may warn with it.
+   */
+  supercoolingK?: number;
+  /** Added (optional): caveats a user of the medium should see (degradation, supercooling, extrapolation). */
+  notes?: string[];
 }
