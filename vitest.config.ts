@@ -1,14 +1,33 @@
 import { defineConfig } from 'vitest/config';
 import path from 'node:path';
 
+const alias = { '@': path.resolve(import.meta.dirname) };
+
+/**
+ * Two projects: "unit" (pure lib/ code, parallel, no services) and "integration" (database, API
+ * over HTTP against the production build, end-to-end in Chromium; one file at a time, with the
+ * server and fakes started once by the global setup).
+ */
 export default defineConfig({
-  resolve: { alias: { '@': path.resolve(import.meta.dirname) } },
+  resolve: { alias },
   test: {
-    include: ['tests/**/*.test.ts'],
-    environment: 'node',
-    testTimeout: 30_000,
-    hookTimeout: 120_000,
-    // DB-backed suites share one database; run files one at a time to keep them independent.
-    fileParallelism: false,
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: 'unit', include: ['tests/lib/**/*.test.ts'], environment: 'node', testTimeout: 60_000 },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'integration',
+          include: ['tests/{api,db,e2e,jobs}/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/global-setup.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
+    ],
   },
 });
