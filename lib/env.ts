@@ -34,8 +34,8 @@ export function getEnv(): Env {
     throw new Error(`Invalid environment:\n${lines.join('\n')}`);
   }
   const e = parsed.data;
-  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET && process.env.HEARTHCAST_DEMO !== '1') {
-    throw new Error('Invalid environment:\nSESSION_SECRET: required in production (32+ characters)');
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
+    throw new Error('Invalid environment:\nSESSION_SECRET: required in production (32+ characters; npm start makes one in .var/session-secret)');
   }
   cached = {
     ...e,

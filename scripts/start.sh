@@ -12,6 +12,12 @@ export APP_URL="${APP_URL:-http://127.0.0.1:${PORT}}"
 export NODE_ENV=production
 
 ensure_node_modules
+# A session secret made on first start and kept (git-ignored), unless one is given.
+if [ -z "${SESSION_SECRET:-}" ]; then
+  mkdir -p .var
+  [ -s .var/session-secret ] || node -e "process.stdout.write(require('crypto').randomBytes(32).toString('base64url'))" > .var/session-secret
+  SESSION_SECRET=$(cat .var/session-secret); export SESSION_SECRET
+fi
 bash scripts/db.sh
 npx tsx scripts/migrate.ts
 if [ "$HEARTHCAST_DEMO" = "1" ]; then npx tsx scripts/seed.ts; fi

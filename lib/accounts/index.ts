@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import {
   InvitationSchema,
@@ -59,6 +60,7 @@ export async function createInvitation(
   const { token, tokenHash } = createOneTimeToken();
   const org = await em.findOneOrFail(OrganisationSchema, { id: organisationId });
   const invitation = em.create(InvitationSchema, {
+    id: randomUUID(),
     email: input.email,
     tokenHash,
     role: input.role,
@@ -95,7 +97,7 @@ export async function acceptInvitation(em: EntityManager, input: { token: string
     }
     const existing = await tx.findOne(MembershipSchema, { user, organisation: inv.organisation, kitchen: inv.kitchen, role: inv.role });
     if (!existing) {
-      const m = tx.create(MembershipSchema, { user, organisation: inv.organisation, kitchen: inv.kitchen, role: inv.role });
+      const m = tx.create(MembershipSchema, { id: randomUUID(), user, organisation: inv.organisation, kitchen: inv.kitchen, role: inv.role });
       recordAudit(tx, { organisationId: inv.organisation.id, kitchenId: inv.kitchen?.id ?? null, actorId: user.id, action: 'membership.create', entityType: 'Membership', entityId: m.id, details: { role: inv.role, via: 'invitation' } });
     }
     inv.acceptedAt = new Date();

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { KitchenSchema, MembershipSchema, OrganisationSchema, type Kitchen } from '@/entities';
 import { getVisibleKitchens, rolesForKitchen, requireCoordinatorOrg, type KitchenAccess, type Viewer } from '@/lib/auth/guard';
 import { recordAudit } from '@/lib/audit';
@@ -26,7 +27,7 @@ export async function listKitchens(viewer: Viewer) {
 export async function createKitchen(viewer: Viewer, input: z.infer<typeof createKitchenSchema>) {
   const orgId = requireCoordinatorOrg(viewer);
   const { em } = viewer;
-  const kitchen = em.create(KitchenSchema, { ...input, organisation: em.getReference(OrganisationSchema, orgId) });
+  const kitchen = em.create(KitchenSchema, { id: randomUUID(), ...input, organisation: em.getReference(OrganisationSchema, orgId) });
   recordAudit(em, { organisationId: orgId, kitchenId: kitchen.id, actorId: viewer.user.id, action: 'kitchen.create', entityType: 'Kitchen', entityId: kitchen.id });
   await em.flush();
   await em.populate(kitchen, ['organisation']);
