@@ -12,6 +12,7 @@ export interface Base {
 
 /** Shared property definitions for the base fields (spread into each schema). */
 export const baseProperties = {
+  // onCreate runs at flush; pass id: randomUUID() to em.create when the id is needed before that (e.g. for the audit log).
   id: { type: 'uuid', primary: true, onCreate: () => randomUUID() },
   createdAt: { type: 'Date', columnType: 'timestamptz', onCreate: () => new Date() },
   updatedAt: { type: 'Date', columnType: 'timestamptz', onCreate: () => new Date(), onUpdate: () => new Date() },
