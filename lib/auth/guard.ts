@@ -23,9 +23,10 @@ export async function requireViewer(): Promise<Viewer> {
   const session = await getSession();
   if (!session.userId) throw unauthorized();
   const em = await getEm();
-  const user = await em.findOne(UserSchema, { id: session.userId });
+  // One joined query for the user and every membership (the hot path of every request).
+  const memberships = await em.find(MembershipSchema, { user: session.userId }, { populate: ['user', 'organisation', 'kitchen'], strategy: 'joined' });
+  const user = memberships[0]?.user ?? (await em.findOne(UserSchema, { id: session.userId }));
   if (!user) throw unauthorized('Your session has ended; sign in again.');
-  const memberships = await em.find(MembershipSchema, { user: user.id }, { populate: ['organisation', 'kitchen'] });
   return { em, user, memberships };
 }
 
