@@ -6,6 +6,8 @@ import { InvitationSchema } from './invitation';
 import { PasswordResetSchema } from './password-reset';
 import { AuditEventSchema } from './audit-event';
 import { LoginAttemptSchema } from './login-attempt';
+import { StorageMediumSchema } from './storage-medium';
+import { CookerSchema } from './cooker';
 
 export * from './base';
 export * from './organisation';
@@ -16,6 +18,8 @@ export * from './invitation';
 export * from './password-reset';
 export * from './audit-event';
 export * from './login-attempt';
+export * from './storage-medium';
+export * from './cooker';
 
 /** Every entity, listed explicitly for mikro-orm.config.ts. */
 export const allEntities = [
@@ -27,4 +31,6 @@ export const allEntities = [
   PasswordResetSchema,
   AuditEventSchema,
   LoginAttemptSchema,
+  StorageMediumSchema,
+  CookerSchema,
 ];

@@ -1,5 +1,6 @@
 import type { MigrationObject } from '@mikro-orm/core';
 import { Migration20261202002824 } from '../migrations/Migration20261202002824';
+import { Migration20261202003926 } from '../migrations/Migration20261202003926';
 
 /**
  * Migrations applied from code (start script, tests). Listed explicitly so they run without a
@@ -8,4 +9,5 @@ import { Migration20261202002824 } from '../migrations/Migration20261202002824';
  */
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202002824', class: Migration20261202002824 },
+  { name: 'Migration20261202003926', class: Migration20261202003926 },
 ];
