@@ -1,6 +1,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { KitchenSchema, MembershipSchema, OrganisationSchema, UserSchema, type Kitchen, type Locale, type Organisation, type Role } from '@/entities';
+import { CookerSchema, KitchenSchema, MembershipSchema, OrganisationSchema, UserSchema, type Kitchen, type Locale, type Organisation, type Role } from '@/entities';
 import { hashPassword } from '@/lib/auth/password';
+import { DEMO_COOKERS } from './cookers';
 
 /**
  * The demo scenario: an invented network of three community kitchens in sunny places (real
@@ -49,6 +50,7 @@ export async function seedDemo(em: EntityManager): Promise<{ organisation: Organ
         const k = ks.find((x) => x.name === d.name);
         if (k) bySlug[d.slug] = k;
       }
+      await seedDemoCookers(tx, bySlug);
       return { organisation: existing, kitchens: bySlug, created: false };
     }
     const organisation = tx.create(OrganisationSchema, { name: DEMO_ORG });
@@ -63,6 +65,18 @@ export async function seedDemo(em: EntityManager): Promise<{ organisation: Organ
       const user = tx.create(UserSchema, { email: a.email, name: a.name, passwordHash, locale: kitchen?.locale ?? 'en', temperatureUnit: 'C' });
       tx.create(MembershipSchema, { user, organisation, kitchen, role: a.role });
     }
+    await seedDemoCookers(tx, kitchens);
     return { organisation, kitchens, created: true };
   });
+}
+
+/** Adds the demo cookers to a demo kitchen that has none (kitchens a lead already equipped are left alone). */
+async function seedDemoCookers(em: EntityManager, kitchens: Record<string, Kitchen>): Promise<void> {
+  for (const [slug, kitchen] of Object.entries(kitchens)) {
+    if ((await em.count(CookerSchema, { kitchen })) > 0) continue;
+    for (const c of DEMO_COOKERS[slug] ?? []) {
+      const { customMediumId: _c, pots, ...rest } = c;
+      em.create(CookerSchema, { ...rest, pots: pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 })), kitchen, customMedium: null, archived: false });
+    }
+  }
 }
