@@ -78,8 +78,10 @@ export interface ResolvedWeather {
   steps: WeatherStep[];
   /** Step mid-times [epoch ms UTC]. */
   midMs: Float64Array;
-  /** Apparent solar zenith at mid-step [°]. */
+  /** Apparent (refracted) solar zenith at mid-step [°]; used for the beam direction and the sky models. */
   zenithDeg: Float64Array;
+  /** Geometric solar zenith at mid-step [°]; used for the extraterrestrial horizontal irradiance I0·cos z. */
+  zenithNoRefractionDeg: Float64Array;
   /** Solar azimuth at mid-step, eastward from north [°]. */
   azimuthDeg: Float64Array;
   /** Extraterrestrial normal irradiance [W/m²]. */
@@ -171,6 +173,7 @@ function assertHourly(hourly: HourlyWeather[]): HourSource[] {
 
 interface SunSamples {
   zenithDeg: Float64Array;
+  zenithNoRefractionDeg: Float64Array;
   azimuthDeg: Float64Array;
   earthSunDistanceAu: Float64Array;
   declinationDeg: Float64Array;
@@ -184,6 +187,7 @@ function sampleSun(timesMs: Float64Array, site: Site, model: SolarPositionModel,
   const n = timesMs.length;
   const s: SunSamples = {
     zenithDeg: new Float64Array(n),
+    zenithNoRefractionDeg: new Float64Array(n),
     azimuthDeg: new Float64Array(n),
     earthSunDistanceAu: new Float64Array(n),
     declinationDeg: new Float64Array(n),
@@ -192,6 +196,7 @@ function sampleSun(timesMs: Float64Array, site: Site, model: SolarPositionModel,
   for (let i = 0; i < n; i++) {
     const r = solarPositionNoaa({ timeMs: timesMs[i] as number, latitudeDeg: site.latitudeDeg, longitudeDeg: site.longitudeDeg });
     s.zenithDeg[i] = r.zenithDeg;
+    s.zenithNoRefractionDeg[i] = r.zenithNoRefractionDeg;
     s.azimuthDeg[i] = r.azimuthDeg;
     s.earthSunDistanceAu[i] = r.earthSunDistanceAu;
     s.declinationDeg[i] = r.declinationDeg;
@@ -205,7 +210,7 @@ function sampleSun(timesMs: Float64Array, site: Site, model: SolarPositionModel,
 /** Hour-level drivers: beam and diffuse transmittances, clearness index or cloud cover. */
 interface HourParams {
   source: HourSource;
-  /** beam-diffuse: DNI / (I0·sun-up fraction) [–] */
+  /** beam-diffuse: beam clear-sky index DNI / hourly mean of the Ineichen–Perez clear-sky DNI [–] */
   kb: number;
   /** beam-diffuse: DHI / mean extraterrestrial horizontal [–] */
   kd: number;
@@ -217,16 +222,27 @@ interface HourParams {
   tl: number;
 }
 
-/** Cap of the hourly transmittances: near sunrise/sunset a small I0h makes the ratio meaningless. */
+/** Cap of the hourly indices kt and kd: near sunrise/sunset a small I0h makes the ratio meaningless. */
 const MAX_HOURLY_INDEX = 1;
+/** Cap of the beam clear-sky index kb (it may exceed 1 when the Linke turbidity used is too high). */
+const MAX_BEAM_INDEX = 2;
+/** Sub-samples per hour for the hourly mean of the clear-sky DNI (5-minute midpoints). */
+const BEAM_SAMPLES_PER_HOUR = 12;
 
 /**
  * Hour drivers from the records and the sun at the n + 1 hour boundaries (hour angle and declination feed the
  * analytic hourly mean of cos z).
  */
-function hourParams(hourly: HourlyWeather[], sources: HourSource[], site: Site, sun: SunSamples): HourParams[] {
+function hourParams(
+  hourly: HourlyWeather[],
+  sources: HourSource[],
+  site: Site,
+  sun: SunSamples,
+  beamSun: SunSamples | null,
+): HourParams[] {
   const n = hourly.length;
   const params: HourParams[] = [];
+  const k = BEAM_SAMPLES_PER_HOUR;
   for (let h = 0; h < n; h++) {
     const rec = hourly[h] as HourlyWeather;
     const source = sources[h] as HourSource;
@@ -235,23 +251,43 @@ function hourParams(hourly: HourlyWeather[], sources: HourSource[], site: Site, 
     const decl = 0.5 * ((sun.declinationDeg[h] as number) + (sun.declinationDeg[h + 1] as number));
     const r = 0.5 * ((sun.earthSunDistanceAu[h] as number) + (sun.earthSunDistanceAu[h + 1] as number));
     const i0 = SOLAR_CONSTANT_WM2 / (r * r);
-    const { meanCosZ, sunUpFraction } = meanCosZenithOverHourAngles(site.latitudeDeg, decl, w1, w2);
+    const { meanCosZ } = meanCosZenithOverHourAngles(site.latitudeDeg, decl, w1, w2);
     const i0hMean = i0 * meanCosZ;
     const ratio = (num: number, den: number): number => (den > 1e-9 ? Math.min(MAX_HOURLY_INDEX, num / den) : 0);
     const month = new Date(rec.t + HOUR_MS / 2).getUTCMonth();
+    const tl = linkeTurbidityForMonth(month, site.latitudeDeg, site.linkeTurbidity);
+    let kb = 0;
+    if (source === 'beam-diffuse' && beamSun) {
+      // Hourly mean of the clear-sky DNI, so the hour's beam is spread within the hour like a clear-sky beam.
+      let clearDni = 0;
+      for (let j = 0; j < k; j++) {
+        const z = beamSun.zenithDeg[h * k + j] as number;
+        const rj = beamSun.earthSunDistanceAu[h * k + j] as number;
+        if (z < 90) {
+          clearDni += clearSkyIneichenPerez2002({ zenithDeg: z, altitudeM: site.altitudeM, linkeTurbidity: tl, i0Wm2: SOLAR_CONSTANT_WM2 / (rj * rj) }).dniWm2;
+        }
+      }
+      clearDni /= k;
+      kb = clearDni > 1e-6 ? Math.min(MAX_BEAM_INDEX, (rec.dniWm2 ?? 0) / clearDni) : 0;
+    }
     params.push({
       source,
-      kb: source === 'beam-diffuse' ? ratio(rec.dniWm2 ?? 0, i0 * sunUpFraction) : 0,
+      kb,
       kd: source === 'beam-diffuse' ? ratio(rec.dhiWm2 ?? 0, i0hMean) : 0,
       kt: source === 'global' ? ratio(rec.ghiWm2 ?? 0, i0hMean) : 0,
       okta: source === 'cloud' ? (rec.cloudOkta ?? 0) : 0,
-      tl: linkeTurbidityForMonth(month, site.latitudeDeg, site.linkeTurbidity),
+      tl,
     });
   }
   return params;
 }
 
-/** Components at one step from one set of hour parameters; writes into out = [ghi, dni, dhi]. */
+/**
+ * Components at one step from one set of hour parameters; writes into out = [ghi, dni, dhi].
+ * The hourly indices were formed against the geometric I0·cos z, so they multiply the geometric cos z here
+ * (using the refracted zenith would add ~1–3 % at low sun in winter at high latitudes); the beam direction,
+ * the clear-sky model and the Erbs split use the apparent zenith.
+ */
 function componentsAt(
   p: HourParams,
   kb: number,
@@ -259,6 +295,7 @@ function componentsAt(
   kt: number,
   okta: number,
   zenithDeg: number,
+  zenithTrueDeg: number,
   i0: number,
   altitudeM: number,
   out: [number, number, number],
@@ -270,9 +307,11 @@ function componentsAt(
     return;
   }
   const cosZ = Math.cos(zenithDeg * DEG_TO_RAD);
+  const cosZTrue = zenithTrueDeg < 90 ? Math.cos(zenithTrueDeg * DEG_TO_RAD) : 0;
   if (p.source === 'beam-diffuse') {
-    const dni = kb * i0;
-    const dhi = kd * i0 * cosZ;
+    const clear = clearSkyIneichenPerez2002({ zenithDeg, altitudeM, linkeTurbidity: p.tl, i0Wm2: i0 }).dniWm2;
+    const dni = Math.min(kb * clear, i0);
+    const dhi = kd * i0 * cosZTrue;
     out[0] = dhi + dni * cosZ;
     out[1] = dni;
     out[2] = dhi;
@@ -280,7 +319,7 @@ function componentsAt(
   }
   let ghi: number;
   if (p.source === 'global') {
-    ghi = kt * i0 * cosZ;
+    ghi = kt * i0 * cosZTrue;
   } else {
     // Cloud only: Ineichen–Perez clear sky × Kasten–Czeplak, then Erbs for the split.
     ghi = clearSkyIneichenPerez2002({ zenithDeg, altitudeM, linkeTurbidity: p.tl, i0Wm2: i0 }).ghiWm2 * cloudFactorKastenCzeplak1980(okta);
@@ -323,28 +362,34 @@ export function resolveWeatherDetailed(
   const spanMs = nHours * HOUR_MS;
   // Steps cover the hours given; when stepS does not divide the span the last step runs past the end.
   const nSteps = Math.ceil(spanMs / stepMs - 1e-9);
-  // One sun sampling for the step mid-times followed by the nHours + 1 hour boundaries, so the fast SPA's
-  // hourly geocentric nodes are computed once.
-  const times = new Float64Array(nSteps + nHours + 1);
+  // One sun sampling for the step mid-times, then the nHours + 1 hour boundaries, then (only when some hour gives
+  // DNI + DHI) 12 sub-samples per hour for the clear-sky beam shape, so the fast SPA's hourly geocentric nodes
+  // are computed once.
+  const needBeam = sources.includes('beam-diffuse');
+  const kSub = BEAM_SAMPLES_PER_HOUR;
+  const nBound = nHours + 1;
+  const times = new Float64Array(nSteps + nBound + (needBeam ? nHours * kSub : 0));
   for (let i = 0; i < nSteps; i++) times[i] = t0 + i * stepMs + stepMs / 2;
   for (let h = 0; h <= nHours; h++) times[nSteps + h] = t0 + h * HOUR_MS;
+  if (needBeam) {
+    for (let h = 0; h < nHours; h++) {
+      for (let j = 0; j < kSub; j++) times[nSteps + nBound + h * kSub + j] = t0 + h * HOUR_MS + ((j + 0.5) * HOUR_MS) / kSub;
+    }
+  }
   const all = sampleSun(times, site, model, deltaTS);
+  const part = (from: number, to: number): SunSamples => ({
+    zenithDeg: all.zenithDeg.subarray(from, to),
+    zenithNoRefractionDeg: all.zenithNoRefractionDeg.subarray(from, to),
+    azimuthDeg: all.azimuthDeg.subarray(from, to),
+    earthSunDistanceAu: all.earthSunDistanceAu.subarray(from, to),
+    declinationDeg: all.declinationDeg.subarray(from, to),
+    hourAngleDeg: all.hourAngleDeg.subarray(from, to),
+  });
   const midMs = times.slice(0, nSteps);
-  const sun: SunSamples = {
-    zenithDeg: all.zenithDeg.slice(0, nSteps),
-    azimuthDeg: all.azimuthDeg.slice(0, nSteps),
-    earthSunDistanceAu: all.earthSunDistanceAu.subarray(0, nSteps),
-    declinationDeg: all.declinationDeg.subarray(0, nSteps),
-    hourAngleDeg: all.hourAngleDeg.subarray(0, nSteps),
-  };
-  const boundarySun: SunSamples = {
-    zenithDeg: all.zenithDeg.subarray(nSteps),
-    azimuthDeg: all.azimuthDeg.subarray(nSteps),
-    earthSunDistanceAu: all.earthSunDistanceAu.subarray(nSteps),
-    declinationDeg: all.declinationDeg.subarray(nSteps),
-    hourAngleDeg: all.hourAngleDeg.subarray(nSteps),
-  };
-  const params = hourParams(hourly, sources, site, boundarySun);
+  const sun = part(0, nSteps);
+  const boundarySun = part(nSteps, nSteps + nBound);
+  const beamSun = needBeam ? part(nSteps + nBound, times.length) : null;
+  const params = hourParams(hourly, sources, site, boundarySun, beamSun);
 
   const ghiA = new Float64Array(nSteps);
   const dniA = new Float64Array(nSteps);
@@ -380,6 +425,7 @@ export function resolveWeatherDetailed(
     const pa = params[a] as HourParams;
     const pb = params[b] as HourParams;
     const z = sun.zenithDeg[i] as number;
+    const zTrue = sun.zenithNoRefractionDeg[i] as number;
     const r = sun.earthSunDistanceAu[i] as number;
     const i0 = SOLAR_CONSTANT_WM2 / (r * r);
     i0A[i] = i0;
@@ -392,14 +438,15 @@ export function resolveWeatherDetailed(
         pa.kt + w * (pb.kt - pa.kt),
         pa.okta + w * (pb.okta - pa.okta),
         z,
+        zTrue,
         i0,
         site.altitudeM,
         ca,
       );
     } else {
       // Different drivers: evaluate each and blend the components linearly (keeps GHI = DHI + DNI·cos z).
-      componentsAt(pa, pa.kb, pa.kd, pa.kt, pa.okta, z, i0, site.altitudeM, ca);
-      componentsAt(pb, pb.kb, pb.kd, pb.kt, pb.okta, z, i0, site.altitudeM, cb);
+      componentsAt(pa, pa.kb, pa.kd, pa.kt, pa.okta, z, zTrue, i0, site.altitudeM, ca);
+      componentsAt(pb, pb.kb, pb.kd, pb.kt, pb.okta, z, zTrue, i0, site.altitudeM, cb);
       ca[0] += w * (cb[0] - ca[0]);
       ca[1] += w * (cb[1] - ca[1]);
       ca[2] += w * (cb[2] - ca[2]);
@@ -438,8 +485,9 @@ export function resolveWeatherDetailed(
   return {
     steps,
     midMs,
-    zenithDeg: sun.zenithDeg,
-    azimuthDeg: sun.azimuthDeg,
+    zenithDeg: sun.zenithDeg.slice(),
+    zenithNoRefractionDeg: sun.zenithNoRefractionDeg.slice(),
+    azimuthDeg: sun.azimuthDeg.slice(),
     i0Wm2: i0A,
     ghiWm2: ghiA,
     dniWm2: dniA,
@@ -453,10 +501,11 @@ export function resolveWeatherDetailed(
  * Method:
  * 1. Sun at each step's mid-time by SPA (Reda & Andreas, NREL/TP-560-34302, 2004; geocentric part interpolated
  *    hourly, see solarPositionsSpaFast) or NOAA.
- * 2. Per hour, the driver: DNI + DHI given → beam transmittance kb = DNI/(I0·f_up) and diffuse index
+ * 2. Per hour, the driver: DNI + DHI given → beam clear-sky index kb = DNI / hourly mean of the Ineichen–Perez
+ *    clear-sky DNI (so the beam keeps a clear-sky shape within the hour, capped at 2) and diffuse index
  *    kd = DHI/Ī0h; GHI only → clearness index kt = GHI/Ī0h; cloud only → okta. Ī0h is the exact hourly mean of
- *    extraterrestrial horizontal irradiance (Duffie & Beckman, "Solar Engineering of Thermal Processes", 2013,
- *    eq. 1.10.4), f_up the sun-up fraction of the hour; the indices are capped at 1.
+ *    the (geometric) extraterrestrial horizontal irradiance (Duffie & Beckman, "Solar Engineering of Thermal
+ *    Processes", 2013, eq. 1.10.4); kt and kd are capped at 1.
  * 3. Drivers are interpolated linearly in time between hour centres and multiplied by the step's own
  *    extraterrestrial irradiance, so night stays exactly zero: GHI-only → GHI = kt·I0·cos z, split by Erbs et
  *    al. 1982 (Solar Energy 28(4):293–302); cloud-only → Ineichen & Perez 2002 clear sky (Solar Energy

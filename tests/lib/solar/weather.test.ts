@@ -75,6 +75,10 @@ describe('resolveWeatherToAperture — steps', () => {
     const hourSum = clear.reduce((a, h) => a + (h.ghiWm2 ?? 0), 0) * 3600;
     // Tolerance: interpolation of hourly indices is not exactly energy-preserving (common practice, no source).
     expect(Math.abs(stepSum / hourSum - 1)).toBeLessThan(0.02);
+    // The beam keeps its daily total too (it is spread within each hour like the clear-sky beam).
+    const dniSteps = r.dniWm2.reduce((a, b) => a + b, 0) * 60;
+    const dniHours = clear.reduce((a, h) => a + (h.dniWm2 ?? 0), 0) * 3600;
+    expect(Math.abs(dniSteps / dniHours - 1)).toBeLessThan(0.02);
   });
 
   it('GHI-only path: each step follows Erbs 1982 and the clearness index of the hour', () => {
