@@ -5,21 +5,23 @@ import { usePathname, useRouter } from 'next/navigation';
 import { useTranslations } from 'next-intl';
 import { useState } from 'react';
 import { LanguagePicker } from './language-picker';
+import { PrefsProvider, type Prefs } from './prefs';
 
 export interface NavItem {
   href: string;
-  key: 'home' | 'kitchen' | 'people' | 'organisation' | 'settings' | 'mailbox';
+  key: 'home' | 'kitchen' | 'cookers' | 'people' | 'organisation' | 'settings' | 'mailbox';
 }
 
 export interface ShellProps {
   user: { name: string; role: string };
   nav: NavItem[];
   kitchens: { id: string; name: string }[];
+  prefs: Prefs;
   children: React.ReactNode;
 }
 
 /** Header with role-based navigation, kitchen switcher, language picker and sign-out; collapses to a menu on phones. */
-export function AppShell({ user, nav, kitchens, children }: ShellProps) {
+export function AppShell({ user, nav, kitchens, prefs, children }: ShellProps) {
   const t = useTranslations('nav');
   const tc = useTranslations('common');
   const pathname = usePathname();
@@ -60,6 +62,16 @@ export function AppShell({ user, nav, kitchens, children }: ShellProps) {
             aria-label={t('main')}
             className={`${open ? 'flex' : 'hidden'} w-full flex-col gap-1 md:ml-4 md:flex md:w-auto md:flex-row md:items-center`}
           >
+            {currentKitchen && (
+              <Link
+                href={`/kitchens/${currentKitchen}/cookers`}
+                aria-current={pathname.startsWith(`/kitchens/${currentKitchen}/cookers`) ? 'page' : undefined}
+                className="rounded-md px-3 py-2 text-sm font-semibold hover:bg-clay-700"
+                onClick={() => setOpen(false)}
+              >
+                {t('cookers')}
+              </Link>
+            )}
             {nav.map((item) => (
               <Link
                 key={item.href}
@@ -99,7 +111,7 @@ export function AppShell({ user, nav, kitchens, children }: ShellProps) {
         </div>
       </header>
       <main id="main" className="mx-auto max-w-6xl px-4 py-6">
-        {children}
+        <PrefsProvider value={prefs}>{children}</PrefsProvider>
       </main>
     </div>
   );

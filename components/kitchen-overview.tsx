@@ -1,5 +1,6 @@
 'use client';
 
+import Link from 'next/link';
 import { useFormatter, useTranslations } from 'next-intl';
 import { useEffect, useState } from 'react';
 import { apiFetch } from '@/lib/client/api';
@@ -36,6 +37,9 @@ export function KitchenOverview({ kitchenId }: { kitchenId: string }) {
       <div>
         <h1 className="text-2xl font-bold">{kitchen.name}</h1>
         <p className="text-clay-700">{kitchen.organisation.name}</p>
+        <Link href={`/kitchens/${kitchen.id}/cookers`} className="btn-primary mt-3">
+          {t('cookers')}
+        </Link>
       </div>
       <section aria-labelledby="details" className="card">
         <h2 id="details" className="mb-2 text-lg font-bold">{t('details')}</h2>

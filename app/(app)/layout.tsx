@@ -1,4 +1,4 @@
-import { getTranslations } from 'next-intl/server';
+import { getLocale, getTranslations } from 'next-intl/server';
 import { getPageViewer } from '@/lib/auth/page';
 import { getVisibleKitchens } from '@/lib/auth/guard';
 import { AppShell, type NavItem } from '@/components/app-shell';
@@ -19,7 +19,12 @@ export default async function AppLayout({ children }: { children: React.ReactNod
   nav.push({ href: '/settings', key: 'settings' });
   if (getEnv().devTools) nav.push({ href: '/dev/mailbox', key: 'mailbox' });
   return (
-    <AppShell user={{ name: viewer.user.name, role: t(top) }} nav={nav} kitchens={kitchens.map((k) => ({ id: k.id, name: k.name }))}>
+    <AppShell
+      user={{ name: viewer.user.name, role: t(top) }}
+      nav={nav}
+      kitchens={kitchens.map((k) => ({ id: k.id, name: k.name }))}
+      prefs={{ temperatureUnit: viewer.user.temperatureUnit, locale: await getLocale() }}
+    >
       {children}
     </AppShell>
   );

@@ -35,9 +35,12 @@ try {
   // Warm-up, then the measured run; every response time is kept so p95 is exact.
   await autocannon({ url: `${base}/api/v1/kitchens`, connections: 20, duration: 3, headers: { cookie } });
   const times: number[] = [];
-  const instance = autocannon({ url: `${base}/api/v1/kitchens`, connections: 20, duration: Number(process.env.BENCH_SECONDS ?? 15), headers: { cookie } });
-  instance.on('response', (_client, _status, _bytes, responseTime) => times.push(responseTime));
-  const r = await instance;
+  const r = await new Promise<autocannon.Result>((resolve, reject) => {
+    const instance = autocannon({ url: `${base}/api/v1/kitchens`, connections: 20, duration: Number(process.env.BENCH_SECONDS ?? 15), headers: { cookie } }, (err, result) =>
+      err ? reject(err) : resolve(result),
+    );
+    instance.on('response', (_client, _status, _bytes, responseTime) => times.push(responseTime));
+  });
   times.sort((a, b) => a - b);
   const pct = (p: number) => times[Math.min(times.length - 1, Math.floor((p / 100) * times.length))] ?? NaN;
   console.log('GET /api/v1/kitchens, signed in as the coordinator, 20 connections');

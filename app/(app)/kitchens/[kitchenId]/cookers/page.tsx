@@ -1,0 +1,8 @@
+import { CookerList } from '@/components/cooker-list';
+import { getKitchenPageAccess } from '@/lib/auth/kitchen-page';
+
+export default async function CookersPage({ params }: { params: Promise<{ kitchenId: string }> }) {
+  const { kitchenId } = await params;
+  const access = await getKitchenPageAccess(kitchenId);
+  return <CookerList kitchenId={kitchenId} canEdit={access.canPlan} />;
+}
