@@ -62,16 +62,6 @@ export function AppShell({ user, nav, kitchens, prefs, children }: ShellProps) {
             aria-label={t('main')}
             className={`${open ? 'flex' : 'hidden'} w-full flex-col gap-1 md:ml-4 md:flex md:w-auto md:flex-row md:items-center`}
           >
-            {currentKitchen && (
-              <Link
-                href={`/kitchens/${currentKitchen}/cookers`}
-                aria-current={pathname.startsWith(`/kitchens/${currentKitchen}/cookers`) ? 'page' : undefined}
-                className="rounded-md px-3 py-2 text-sm font-semibold hover:bg-clay-700"
-                onClick={() => setOpen(false)}
-              >
-                {t('cookers')}
-              </Link>
-            )}
             {nav.map((item) => (
               <Link
                 key={item.href}
@@ -83,6 +73,16 @@ export function AppShell({ user, nav, kitchens, prefs, children }: ShellProps) {
                 {t(item.key)}
               </Link>
             ))}
+            {currentKitchen && (
+              <Link
+                href={`/kitchens/${currentKitchen}/cookers`}
+                aria-current={pathname.startsWith(`/kitchens/${currentKitchen}/cookers`) ? 'page' : undefined}
+                className="rounded-md px-3 py-2 text-sm font-semibold hover:bg-clay-700"
+                onClick={() => setOpen(false)}
+              >
+                {t('cookers')}
+              </Link>
+            )}
           </nav>
           <div className={`${open ? 'flex' : 'hidden'} w-full flex-wrap items-center gap-3 md:ml-auto md:flex md:w-auto`}>
             {kitchens.length > 0 && (

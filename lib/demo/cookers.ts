@@ -8,10 +8,10 @@ const pot = (id: string, name: string, volumeL: number, contactAreaM2: number) =
   id,
   name,
   volumeL,
-  massKg: 0.09 * volumeL + 1,
+  massKg: Math.round((0.09 * volumeL + 1) * 10) / 10,
   cpJPerKgK: 900, // aluminium ≈ 900 J/(kg·K) (from memory)
   coupling: { kind: 'natural-convection' as const, contactAreaM2 },
-  lidAreaM2: contactAreaM2 * 0.9,
+  lidAreaM2: Math.round(contactAreaM2 * 90) / 100,
   lidUWPerM2K: 6,
 });
 
@@ -19,7 +19,7 @@ export const DEMO_COOKERS: Record<string, CookerInput[]> = {
   baobab: [
     {
       name: 'Dish 1 (sunflower store)',
-      kind: 'dish', apertureM2: 8, tracking: 'two-axis', tiltDeg: 0, surfaceAzimuthDeg: 0,
+      kind: 'dish', apertureM2: 5, tracking: 'two-axis', tiltDeg: 0, surfaceAzimuthDeg: 0,
       collectorModel: 'iso9806', eta0: 0.6, a1: 0.6, a2: 0.002, uLossWPerK: 0,
       mediumId: 'sunflower-oil', storeMassKg: 180, storeUaWPerK: 1.6, storeNodes: 1,
       maxSafeTempC: 195, minUsefulTempC: 110,
