@@ -1,0 +1,136 @@
+/**
+ * HiGHS (Huangfu & Hall 2018, "Parallelizing the dual revised simplex method", Math. Prog. Comp.
+ * 10:119–142; MIP solver by Galabova, Hall et al.) compiled to WebAssembly (npm `highs`).
+ *
+ * The Wasm module compiles slowly the first time, so it is loaded once per process and kept in a
+ * module variable; warmPlanner() loads it and runs a tiny model so the first real plan is fast.
+ * Its heap is capped at 2 GiB: every model is disposed right after its solve.
+ *
+ * The master problem is a set packing over per-cooker sequence columns:
+ *   maximise Σ_k v_k·y_k  s.t.  Σ_{k of cooker c} y_k ≤ 1 (each cooker),
+ *                                Σ_{k ∋ batch b} y_k ≤ 1 (each batch),  y_k ∈ {0, 1},
+ * where every column is a sequence the simulator found feasible and v_k its objective value.
+ */
+import type { Highs, ModelData } from 'highs';
+import type { Column } from './search';
+
+let highsPromise: Promise<Highs> | null = null;
+
+/** The process-wide HiGHS instance (loaded on first use). */
+export function loadHighs(): Promise<Highs> {
+  if (!highsPromise) {
+    highsPromise = import('highs')
+      .then((mod) => {
+        const loader = (mod as unknown as { default: (o?: object) => Promise<Highs> }).default;
+        return loader();
+      })
+      .catch((err: unknown) => {
+        highsPromise = null;
+        throw err;
+      });
+  }
+  return highsPromise;
+}
+
+/** Loads HiGHS and solves a two-variable MIP once, so later solves skip the Wasm warm-up. */
+export async function warmPlanner(): Promise<void> {
+  const h = await loadHighs();
+  solveModel(
+    h,
+    {
+      numCols: 2,
+      numRows: 1,
+      sense: h.constants.objectiveSense.maximize,
+      colCost: [1, 2],
+      colLower: [0, 0],
+      colUpper: [1, 1],
+      rowLower: [-h.infinity],
+      rowUpper: [1],
+      matrix: { format: 'csc', numRows: 1, numCols: 2, starts: [0, 1, 2], indices: [0, 0], values: [1, 1] },
+      integrality: [1, 1],
+    },
+    1,
+  );
+}
+
+export interface SolveOutcome {
+  /** HiGHS model status code (7 optimal, 13 time limit, …). */
+  status: number;
+  objective: number;
+  x: Float64Array | null;
+  /** MIP dual bound (for MIPs), else the objective. */
+  dualBound: number;
+}
+
+/** Solves one model and disposes it. */
+export function solveModel(h: Highs, data: ModelData, timeLimitS: number, start?: number[]): SolveOutcome {
+  const model = h.createModel(data);
+  try {
+    model.options.set({ output_flag: false, time_limit: Math.max(0.05, timeLimitS), mip_rel_gap: 1e-9, random_seed: 1 });
+    if (start) model.setSolution({ colValue: start });
+    model.run();
+    const status = model.getModelStatus() as number;
+    const sol = model.getSolution();
+    const hasX = sol.colValue.length === data.numCols && (status === 7 || status === 13 || status === 14 || status === 16 || status === 17);
+    let dualBound = Number.NaN;
+    try {
+      dualBound = Number(model.info.get('mip_dual_bound'));
+    } catch {
+      dualBound = Number.NaN;
+    }
+    return { status, objective: model.getObjectiveValue(), x: hasX ? Float64Array.from(sol.colValue) : null, dualBound };
+  } finally {
+    model.dispose();
+  }
+}
+
+export interface MasterResult {
+  chosen: Column[];
+  objective: number;
+  status: number;
+}
+
+/**
+ * Set-packing master over all columns. `incumbent` (one column per cooker, or fewer) is passed as
+ * the MIP start, so HiGHS never returns anything worse than it.
+ */
+export function solveMaster(h: Highs, nCookers: number, columns: readonly Column[], incumbent: ReadonlySet<string>, timeLimitS: number): MasterResult | null {
+  if (columns.length === 0) return null;
+  const batchRow = new Map<number, number>();
+  for (const col of columns) for (const b of col.batches) if (!batchRow.has(b)) batchRow.set(b, nCookers + batchRow.size);
+  const numRows = nCookers + batchRow.size;
+  const starts: number[] = [0];
+  const indices: number[] = [];
+  const values: number[] = [];
+  const cost: number[] = [];
+  for (const col of columns) {
+    const rows = [col.c, ...col.batches.map((b) => batchRow.get(b) as number)].sort((a, z) => a - z);
+    for (const r of rows) {
+      indices.push(r);
+      values.push(1);
+    }
+    starts.push(indices.length);
+    cost.push(col.value);
+  }
+  const n = columns.length;
+  const data: ModelData = {
+    numCols: n,
+    numRows,
+    sense: h.constants.objectiveSense.maximize,
+    colCost: cost,
+    colLower: new Array<number>(n).fill(0),
+    colUpper: new Array<number>(n).fill(1),
+    rowLower: new Array<number>(numRows).fill(-h.infinity),
+    rowUpper: new Array<number>(numRows).fill(1),
+    matrix: { format: 'csc', numRows, numCols: n, starts, indices, values },
+    integrality: new Array<0 | 1>(n).fill(1),
+  };
+  const start = columns.map((c) => (incumbent.has(c.key) ? 1 : 0));
+  const out = solveModel(h, data, timeLimitS, start);
+  if (!out.x) return null;
+  const chosen: Column[] = [];
+  out.x.forEach((v, k) => {
+    if (v > 0.5) chosen.push(columns[k] as Column);
+  });
+  return { chosen, objective: out.objective, status: out.status };
+}

@@ -1,0 +1,416 @@
+/**
+ * planDay: packs a day's batches onto stored-heat solar cookers.
+ *
+ * Method (structure first: batches on different cookers do not interact, each cooker has its own store):
+ *  1. single-batch relaxations with the simulator (relaxation.ts): where each batch could run alone,
+ *     its quickest pot occupation, energy bounds — used to prune candidates and to explain backups;
+ *  2. greedy: batches by serve-by, each at the earliest feasible (cooker, pot, grid start), checked by
+ *     simulating the receiving cooker only (search.ts);
+ *  3. local search on per-cooker sequences — swap, shift, and large-neighbourhood destroy-and-repair of
+ *     one or two cookers — every feasible sequence becoming a column;
+ *  4. a set-packing master over all columns solved by HiGHS (master.ts), warm-started with the
+ *     incumbent, alternating with 3 until the time limit or until nothing improves;
+ *  5. an upper bound from an LP relaxation (bound.ts) and the gap;
+ *  6. a final re-check: every cooker's sequence simulated in full from the initial state; a batch
+ *     that fails is moved (another start or pot on its cooker) or sent to backup ('failed-recheck').
+ * The plan never scores below the greedy one (both the search and the master only accept improvements).
+ * Deterministic for the same inputs as long as the time limit does not cut the search
+ * (deps.maxIterations makes it independent of machine speed).
+ */
+import type { Highs } from 'highs';
+import { buildModel, ceilToGrid, CookerEvaluator, nextShiftStart, shiftEndAt, type Evaluation, type EvaluatorStats, type Load, type LoadOut, type PBatch, type PModel } from './model';
+import { loadHighs, solveMaster } from './master';
+import { BOUND_METHOD_EXACT, BOUND_METHOD_SIMPLE, computeBound } from './bound';
+import { enumerateExact } from './exact';
+import { buildRelaxation, type Relaxation } from './relaxation';
+import { mulberry32, placedOf, Search, stateServings, stateValue, type State } from './search';
+import type { BackupBatch, PlannedSlot, PlannerDeps, PlannerProblem, PlannerResult, PlannerStatus, SimulateFn } from './types';
+import { STEP_MS, validateProblem } from './validate';
+import { buildSlots, failureDetail } from './report';
+import { getDefaultSimulate } from './simulator';
+import { PotScreen } from './screen';
+
+export { warmPlanner } from './master';
+
+/** Share of the time limit kept for the final re-check and the result. */
+const RESERVE = 0.1;
+
+export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): Promise<PlannerResult> {
+  const tStart = performance.now();
+  validateProblem(problem);
+  const log: string[] = [];
+  const say = (line: string) => {
+    const l = `${Math.round(performance.now() - tStart)} ms: ${line}`;
+    log.push(l);
+    deps.onLog?.(l);
+  };
+  const simulate: SimulateFn = deps.simulate ?? (await getDefaultSimulate());
+  const searchSim: SimulateFn = deps.searchSimulate ?? simulate;
+  const m = buildModel(problem);
+  const highsP: Promise<Highs | null> = deps.noSolver ? Promise.resolve(null) : loadHighs().catch(() => null);
+  const budgetMs = problem.timeLimitS * 1000;
+  const deadline = tStart + budgetMs * (1 - RESERVE);
+  const stats: EvaluatorStats = { sims: 0, simSteps: 0, cacheHits: 0 };
+  const evals = m.cookers.map((c) => new CookerEvaluator(m, c, searchSim, stats));
+
+  if (m.batches.length === 0) {
+    return {
+      status: 'empty',
+      slots: [],
+      backup: [],
+      servingsOnSun: 0,
+      objective: 0,
+      upperBound: 0,
+      boundMethod: 'no batches',
+      gap: 0,
+      solveTimeMs: performance.now() - tStart,
+      greedyServings: 0,
+      iterations: 0,
+      log,
+    };
+  }
+
+  const screens = m.cookers.map((c) => new PotScreen(m, c));
+  const relax = buildRelaxation(m, evals, screens);
+  for (const e of evals) e.durationHint = durationHint(m, relax, e.c.idx);
+  say(`relaxation: ${stats.sims} simulations; ${relax.impossible.filter((x) => x).length} batches possible nowhere`);
+
+  // Start from the fixed batches; a fixed batch that cannot finish is dropped here and reported.
+  const failedFixed = new Map<number, string>();
+  const st: State = { evs: evals.map((e) => dropFailing(m, e, e.fixedLoads(), failedFixed, (ev) => e.evaluate(ev))) };
+  const rng = mulberry32(problem.seed ?? 1);
+  const search = new Search(m, evals, relax, screens, rng, deadline);
+
+  const fixedOnly: State = { evs: st.evs.slice() };
+
+  // 2. Greedy.
+  const candidates = m.batches.filter((b) => !b.fixed && relax.impossible[b.idx] === null).map((b) => b.idx);
+  search.greedy(st, search.greedyOrder(candidates), m.cookers.map((c) => c.idx));
+  st.evs.forEach((ev, c) => search.addColumn(c, ev));
+  const greedyValue = stateValue(m, st);
+  const greedyServings = stateServings(m, st);
+  say(`greedy: ${greedyServings} servings, objective ${greedyValue.toFixed(4)} (${stats.sims} simulations)`);
+
+  const highs = await highsP;
+  if (!highs && !deps.noSolver) say('HiGHS could not be loaded: greedy and local search only');
+  // A cheap bound to stop early; the LP bound (5.) runs after the search.
+  let bound = computeBound(null, m, relax, 0).bound;
+
+  // 3–4. Local search and master.
+  const maxIt = deps.maxIterations ?? Infinity;
+  const nC = m.cookers.length;
+  const staleLimit = Math.max(16, 4 * nC);
+  const masterEvery = Math.max(8, nC);
+  let stale = 0;
+  let lastMasterPool = 0;
+  let masterRuns = 0;
+  let lastMasterStatus = -1;
+  function atBoundNow(): boolean {
+    return stateServings(m, st) >= bound - 1e-9;
+  }
+  const tryMaster = (final: boolean) => {
+    if (!highs || search.pool.size === lastMasterPool) return false;
+    const left = (deadline - performance.now()) / 1000;
+    if (!final && left < 0.05) return false;
+    lastMasterPool = search.pool.size;
+    masterRuns++;
+    const cols = [...search.pool.values()];
+    const inc = new Set(st.evs.map((ev, c) => `${c}|${ev.key}`));
+    for (const [c, ev] of st.evs.entries()) search.addColumn(c, ev);
+    const res = solveMaster(highs, nC, cols, inc, Math.max(0.1, final ? Math.max(0.1, left) : left / 3));
+    lastMasterStatus = res?.status ?? -1;
+    if (!res) return false;
+    const cur = stateValue(m, st);
+    if (res.objective <= cur + 1e-7) return false;
+    const next: Evaluation[] = evals.map((e) => e.evaluate(e.fixedLoads()));
+    for (const col of res.chosen) next[col.c] = (evals[col.c] as CookerEvaluator).evaluate(col.loads);
+    const trial: State = { evs: next.map((ev, c) => (ev.ok ? ev : (st.evs[c] as Evaluation))) };
+    // Columns are disjoint, but a fallback to the old sequence could duplicate a batch: check.
+    const seen = new Set<number>();
+    let clash = false;
+    for (const ev of trial.evs) for (const l of ev.loads) (seen.has(l.b) ? (clash = true) : seen.add(l.b));
+    if (clash || stateValue(m, trial) <= cur + 1e-9) return false;
+    st.evs = trial.evs;
+    say(`master: ${cols.length} columns → objective ${stateValue(m, st).toFixed(4)}`);
+    return true;
+  };
+
+  // Small instances: decide every subset of every cooker (exact.ts); the master over those columns is exact.
+  let exactProof = false;
+  if (!atBoundNow() && highs && (deps.maxExactEvaluations ?? 4000) > 0 && performance.now() < deadline) {
+    const ex = enumerateExact(m, search, fixedOnly, deps.maxExactEvaluations ?? 4000);
+    say(`exact enumeration: ${ex.complete ? 'complete' : 'stopped'}, ${ex.columns} columns, ${ex.evaluations} simulations`);
+    if (ex.complete) {
+      lastMasterPool = -1;
+      const solved = tryMaster(true);
+      if (lastMasterStatus === 7) {
+        exactProof = true;
+        bound = stateServings(m, st);
+        say(`exact: optimum ${bound} servings${solved ? ' (master improved the plan)' : ''}`);
+      }
+    }
+  }
+
+  const atBound = () => stateServings(m, st) >= bound - 1e-9;
+  let stopReason: 'bound' | 'converged' | 'time' | 'iterations' = 'converged';
+  if (atBound()) stopReason = 'bound';
+  else if (performance.now() < deadline) {
+    if (search.swapPass(st, 40 * nC)) stale = 0;
+    if (search.insertionPass(st)) stale = 0;
+    tryMaster(false);
+    const perm = (): number[] => {
+      const a = m.cookers.map((c) => c.idx);
+      for (let i = a.length - 1; i > 0; i--) {
+        const j = Math.floor(rng() * (i + 1));
+        [a[i], a[j]] = [a[j] as number, a[i] as number];
+      }
+      return a;
+    };
+    let order = perm();
+    let pos = 0;
+    for (;;) {
+      if (atBound()) {
+        stopReason = 'bound';
+        break;
+      }
+      if (search.timeUp()) {
+        stopReason = 'time';
+        break;
+      }
+      if (search.iterations >= maxIt) {
+        stopReason = 'iterations';
+        break;
+      }
+      if (stale >= staleLimit) {
+        if (tryMaster(false) || search.swapPass(st, 20 * nC) || search.insertionPass(st)) {
+          stale = 0;
+          continue;
+        }
+        stopReason = 'converged';
+        break;
+      }
+      if (pos >= order.length) {
+        order = perm();
+        pos = 0;
+      }
+      const c1 = order[pos++] as number;
+      const pick = nC > 1 && rng() < 0.6 ? [c1, pickPartner(m, relax, st, c1, rng)] : [c1];
+      const improved = search.lns(st, pick);
+      stale = improved ? 0 : stale + 1;
+      if (search.iterations % masterEvery === 0 && tryMaster(false)) stale = 0;
+    }
+    if (!search.timeUp()) search.shiftPass(st, 30 * nC);
+    tryMaster(true);
+  }
+  say(`search: ${search.iterations} iterations, ${masterRuns} master solves, ${search.pool.size} columns, stop: ${stopReason}`);
+
+  // 5. Upper bound: the LP relaxation when HiGHS is there and the cheap bound is not met.
+  let boundRes = { bound, method: exactProof ? BOUND_METHOD_EXACT : BOUND_METHOD_SIMPLE, lpStatus: null as number | null };
+  if (highs && !exactProof && stateServings(m, st) < bound - 1e-9) {
+    const left = Math.max(0.1, (tStart + budgetMs - performance.now()) / 1000 / 2);
+    boundRes = computeBound(highs, m, relax, left);
+    bound = boundRes.bound;
+  }
+  say(`bound: ${bound} servings (${boundRes.method.slice(0, 40)}…, LP status ${boundRes.lpStatus})`);
+
+  // 6. Final re-check with the full simulator from the initial state.
+  const finalEvals = m.cookers.map((c) => new CookerEvaluator(m, c, simulate, stats));
+  for (const e of finalEvals) e.durationHint = durationHint(m, relax, e.c.idx);
+  const failed = new Map<number, string>(failedFixed);
+  const repairSearch = new Search(m, finalEvals, relax, screens, rng, Infinity);
+  const finalState: State = { evs: [] };
+  for (const c of m.cookers) {
+    const fe = finalEvals[c.idx] as CookerEvaluator;
+    let loads = (st.evs[c.idx] as Evaluation).loads;
+    const tried = new Set<number>();
+    let ev = fe.evaluateFull(loads);
+    while (!ev.ok) {
+      const j = ev.failIdx;
+      const l = loads[j] as Load;
+      const b = m.batches[l.b] as PBatch;
+      const detail = failureDetail(m, fe, ev, j);
+      loads = loads.filter((_, k) => k !== j);
+      ev = fe.evaluateFull(loads);
+      if (ev.ok && !b.fixed && !tried.has(l.b)) {
+        tried.add(l.b);
+        // tryInsert only reads the sequences of the cookers it is given.
+        const tmp: State = { evs: m.cookers.map(() => ev) };
+        const r = repairSearch.tryInsert(tmp, b, [c.idx], 12);
+        if (r) {
+          const full = fe.evaluateFull(r.ev.loads);
+          if (full.ok) {
+            say(`re-check: ${b.raw.dishName} (${b.id}) moved on ${c.name}`);
+            loads = r.ev.loads;
+            ev = full;
+            continue;
+          }
+        }
+      }
+      failed.set(l.b, detail);
+      say(`re-check: ${b.raw.dishName} (${b.id}) fails on ${c.name}: ${detail}`);
+    }
+    finalState.evs.push(ev);
+  }
+
+  // Result.
+  const slots = buildSlots(m, finalState.evs);
+
+  const where = placedOf(m, finalState);
+  const backup: BackupBatch[] = [];
+  for (const b of m.batches) {
+    if ((where[b.idx] as number) >= 0) continue;
+    const f = failed.get(b.idx);
+    if (f !== undefined) backup.push({ batchId: b.id, reason: 'failed-recheck', detail: f });
+    else {
+      const imp = relax.impossible[b.idx];
+      backup.push(imp ? { batchId: b.id, reason: imp.reason, detail: imp.detail } : whyNotPlaced(m, relax, finalEvals, finalState, b));
+    }
+  }
+
+  const servingsOnSun = stateServings(m, finalState);
+  const objective = stateValue(m, finalState);
+  const upperBound = Math.max(bound, servingsOnSun);
+  if (servingsOnSun > bound + 1e-9) say(`warning: plan ${servingsOnSun} servings above the bound ${bound}; bound raised (its energy assumption did not hold)`);
+  const gap = upperBound > 0 ? (upperBound - servingsOnSun) / upperBound : 0;
+  let status: PlannerStatus;
+  if (gap <= 1e-9) status = 'optimal';
+  else if (search.iterations === 0 && masterRuns === 0) status = 'greedy-only';
+  else if (stopReason === 'time') status = 'time-limit';
+  else status = 'converged';
+  say(`final: ${servingsOnSun} servings, bound ${upperBound}, gap ${(gap * 100).toFixed(2)} %, ${stats.sims} simulations (${stats.simSteps} steps), ${backup.length} backup`);
+  return {
+    status,
+    slots,
+    backup,
+    servingsOnSun,
+    objective: round6(objective),
+    upperBound,
+    boundMethod: boundRes.method,
+    gap,
+    solveTimeMs: performance.now() - tStart,
+    greedyServings,
+    iterations: search.iterations,
+    log,
+  };
+}
+
+function round2(x: number): number {
+  return Math.round(x * 100) / 100;
+}
+function round6(x: number): number {
+  return Math.round(x * 1e6) / 1e6;
+}
+
+/** Drops failing loads one by one (first failure first) until the sequence works. */
+function dropFailing(m: PModel, e: CookerEvaluator, loads: Load[], failed: Map<number, string>, ev: (l: Load[]) => Evaluation): Evaluation {
+  let cur = ev(loads);
+  while (!cur.ok) {
+    const j = cur.failIdx;
+    const l = cur.loads[j] as Load;
+    failed.set(l.b, failureDetail(m, e, cur, j));
+    cur = ev(cur.loads.filter((_, k) => k !== j));
+  }
+  return cur;
+}
+
+/** Reason for a batch that could run alone somewhere but has no place in the final plan. */
+function whyNotPlaced(m: PModel, relax: Relaxation, evals: CookerEvaluator[], st: State, b: PBatch): BackupBatch {
+  let anyFree = false;
+  let hottest = -Infinity;
+  let hottestAt = 0;
+  let hottestCooker = '';
+  for (const c of m.cookers) {
+    const e = evals[c.idx] as CookerEvaluator;
+    const ev = st.evs[c.idx] as Evaluation;
+    for (const pot of c.pots) {
+      if (!relax.possible[b.idx]?.[c.idx]?.[pot.idx]) continue;
+      const dmin = relax.dminMs[b.idx]?.[c.idx]?.[pot.idx] ?? Infinity;
+      let s = ceilToGrid(Math.max(b.earliest, c.t0), m.slotMs);
+      while (s + dmin <= Math.min(b.serveBy, c.tEnd)) {
+        const se = shiftEndAt(m, s);
+        if (se < 0) {
+          const nx = nextShiftStart(m, s);
+          if (nx === Infinity) break;
+          s = ceilToGrid(nx, m.slotMs);
+          continue;
+        }
+        let maxEnd = Math.min(b.serveBy, se, c.tEnd);
+        let free = true;
+        ev.loads.forEach((l, j) => {
+          if (l.p !== pot.idx) return;
+          const end = (ev.out[j] as LoadOut).endMs;
+          if (l.s <= s && end + m.turnMs > s) free = false;
+          if (l.s > s) maxEnd = Math.min(maxEnd, l.s - m.turnMs);
+        });
+        if (free && s + dmin <= maxEnd) {
+          anyFree = true;
+          const i0 = Math.round((s - c.t0) / STEP_MS);
+          const i1 = Math.floor((maxEnd - b.holdMs - c.t0) / STEP_MS);
+          for (let i = i0; i <= i1; i++) {
+            const v = e.storeAt(ev, i);
+            if (v > hottest) {
+              hottest = v;
+              hottestAt = c.t0 + i * STEP_MS;
+              hottestCooker = c.name;
+            }
+          }
+        }
+        s += m.slotMs;
+      }
+    }
+  }
+  const need = Math.round(b.raw.minTempC);
+  if (!anyFree) {
+    return {
+      batchId: b.id,
+      reason: 'no-free-pot',
+      detail: `every pot large enough is busy with other batches between ${m.clock(b.earliest)} and ${m.clock(b.serveBy)}`,
+    };
+  }
+  if (hottest < b.raw.minTempC) {
+    return {
+      batchId: b.id,
+      reason: 'no-cooker-hot-enough',
+      detail: `with the other batches drawing heat, the hottest store while a pot is free would be ${Math.round(hottest)} °C at ${m.clock(hottestAt)} (${hottestCooker}); this dish needs ${need} °C`,
+    };
+  }
+  return {
+    batchId: b.id,
+    reason: 'no-cooker-hot-enough',
+    detail: `alongside the other batches no store can bring the pot to ${need} °C and hold it ${Math.round(b.raw.holdS / 60)} min before ${m.clock(b.serveBy)}`,
+  };
+}
+
+/** Expected pot occupation for the simulation horizon: twice the quickest one plus half an hour [ms]. */
+function durationHint(m: PModel, relax: Relaxation, c: number): (b: number, p: number) => number {
+  return (b, p) => {
+    const d = relax.dminMs[b]?.[c]?.[p] ?? Infinity;
+    return Number.isFinite(d) ? 2 * d + 1800_000 : (m.batches[b] as PBatch).holdMs + 3 * 3600_000;
+  };
+}
+
+function pickPartner(m: PModel, relax: Relaxation, st: State, c1: number, rng: () => number): number {
+  // Prefer a cooker that could take one of c1's batches or an unplaced batch c1 could take.
+  const nC = m.cookers.length;
+  const where = placedOf(m, st);
+  const score = new Array<number>(nC).fill(0);
+  for (const b of m.batches) {
+    if (b.fixed) continue;
+    const w = where[b.idx] as number;
+    if (w !== c1 && w >= 0) continue;
+    const poss = relax.possible[b.idx];
+    if (!poss) continue;
+    for (let c = 0; c < nC; c++) if (c !== c1 && poss[c]?.some((x) => x)) score[c] = (score[c] as number) + 1;
+  }
+  const total = score.reduce((s, x) => s + x, 0);
+  if (total === 0) {
+    const r = Math.floor(rng() * (nC - 1));
+    return r >= c1 ? r + 1 : r;
+  }
+  let u = rng() * total;
+  for (let c = 0; c < nC; c++) {
+    u -= score[c] as number;
+    if (u < 0 && c !== c1) return c;
+  }
+  return c1 === 0 ? 1 : 0;
+}
