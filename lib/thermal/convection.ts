@@ -175,14 +175,8 @@ function fillRow(t: FilmGroupTable, medium: StorageMedium, i: number): void {
   t.filled[i] = 1;
 }
 
-/**
- * Property groups at tC into out = [g·β/(ν·α), 0.069·k·Pr^0.074, Churchill–Chu factor, k] (table + linear
- * interpolation; exact evaluation outside the table or next to a solid/liquid switch).
- * @returns false when the medium is solid at tC
- */
-export function filmGroups(medium: StorageMedium, tC: number, out: Float64Array): boolean {
-  const x = (tC - FILM_TABLE_MIN_C) / FILM_TABLE_STEP_K;
-  if (!(x >= 0 && x < FILM_TABLE_SIZE - 1)) return filmGroupsExact(medium, tC, out);
+/** The cached film-property table of a medium (created empty on first use). */
+function filmGroupTable(medium: StorageMedium): FilmGroupTable {
   let t = FILM_TABLES.get(medium);
   if (t === undefined) {
     t = {
@@ -194,6 +188,12 @@ export function filmGroups(medium: StorageMedium, tC: number, out: Float64Array)
     };
     FILM_TABLES.set(medium, t);
   }
+  return t;
+}
+
+function filmGroupsFromTable(t: FilmGroupTable, medium: StorageMedium, tC: number, out: Float64Array): boolean {
+  const x = (tC - FILM_TABLE_MIN_C) / FILM_TABLE_STEP_K;
+  if (!(x >= 0 && x < FILM_TABLE_SIZE - 1)) return filmGroupsExact(medium, tC, out);
   const i = Math.floor(x);
   if (t.filled[i] === 0) fillRow(t, medium, i);
   if (t.filled[i + 1] === 0) fillRow(t, medium, i + 1);
@@ -206,6 +206,16 @@ export function filmGroups(medium: StorageMedium, tC: number, out: Float64Array)
   out[2] = t.cc[i]! + f * (t.cc[i + 1]! - t.cc[i]!);
   out[3] = t.k[i]! + f * (t.k[i + 1]! - t.k[i]!);
   return true;
+}
+
+/**
+ * Property groups at tC into out = [g·β/(ν·α) [1/(K·m³)], 0.069·k·Pr^0.074 [W/(m·K)], Churchill–Chu Prandtl factor
+ * 0.387/[1 + (0.492/Pr)^(9/16)]^(8/27) [–], k [W/(m·K)]] (table + linear interpolation; exact evaluation outside
+ * the table or next to a solid/liquid switch).
+ * @returns false when the medium is solid at tC
+ */
+export function filmGroups(medium: StorageMedium, tC: number, out: Float64Array): boolean {
+  return filmGroupsFromTable(filmGroupTable(medium), medium, tC, out);
 }
 
 /**
@@ -231,8 +241,9 @@ export function createNaturalConvectionCoupling(
   const wetHeight = aWall > 0 ? aWall / (Math.PI * g.diameterM) : 0;
   const floorLength = g.diameterM / 4;
   const grp = new Float64Array(4);
+  const table = filmGroupTable(medium);
   return (tStoreC: number, tPotC: number): number => {
-    const liquid = filmGroups(medium, 0.5 * (tStoreC + tPotC), grp);
+    const liquid = filmGroupsFromTable(table, medium, 0.5 * (tStoreC + tPotC), grp);
     const k = grp[3]!;
     const hFloor = k / floorLength;
     if (!liquid) return hFloor * contactAreaM2;

@@ -251,6 +251,34 @@ describe('simulateCooker — defocus, charge, batches, boiling, events', () => {
     expect(r.events.filter((e) => e.kind === 'charge-below')).toHaveLength(2); // no chatter
   });
 
+  it('two pots on one store at once: the Strang splitting barely depends on the pot order (< 0.02 K, < 0.05 % draw)', () => {
+    const loads: PotLoad[] = [
+      { id: 'a', potId: 'big', startMs: T0_MS + 60 * MIN_MS, foodKg: 4, foodCpJPerKgK: 3000, waterKg: 8, lidOn: true, minTempC: 200, holdS: 0, maxEndMs: T0_MS + 4 * HOUR_MS },
+      { id: 'b', potId: 'small', startMs: T0_MS + 60 * MIN_MS, foodKg: 3, foodCpJPerKgK: 2100, waterKg: 0, lidOn: true, minTempC: 200, holdS: 0, maxEndMs: T0_MS + 4 * HOUR_MS },
+    ];
+    const spec = referenceCooker('sunflower-oil');
+    const swapped: CookerSpec = { ...spec, pots: [spec.pots[1]!, spec.pots[0]!] };
+    const w = constantWeather(5 * 60, 800, 28);
+    const opts = { initialStoreTempC: 150, altitudeM: 0, loads };
+    const r1 = simulateCooker(spec, w, opts);
+    const r2 = simulateCooker(swapped, w, opts);
+    for (let k = 0; k < r1.series.t.length; k++) expect(Math.abs(r1.series.storeTempC[k]! - r2.series.storeTempC[k]!)).toBeLessThan(0.02);
+    for (let i = 0; i < 2; i++) expect(Math.abs(r1.loads[i]!.drawnJ / r2.loads[i]!.drawnJ - 1)).toBeLessThan(5e-4);
+    expect(r1.balance.relativeError).toBeLessThan(1e-9);
+  });
+
+  it('a 10-node store heated from below and drawn from the top stays close to the well-mixed store and ends stably stratified', () => {
+    const weather = variedWeather(1, 99);
+    const opts = { initialStoreTempC: 70, altitudeM: 800, loads: dailyLoads(1) };
+    const one = simulateCooker(referenceCooker('sunflower-oil'), weather, opts);
+    const ten = simulateCookerSummary(referenceCooker('sunflower-oil', 10), weather, opts);
+    // Rayleigh–Bénard mixing (BRIEF.md §Physics 3): the mean temperatures differ by well under 2 K.
+    expect(Math.abs(ten.finalStoreTempC - one.series.storeTempC[one.series.storeTempC.length - 1]!)).toBeLessThan(2);
+    for (let i = 1; i < ten.finalLayerTempsC.length; i++) {
+      expect(ten.finalLayerTempsC[i]!).toBeGreaterThanOrEqual(ten.finalLayerTempsC[i - 1]! - 1e-9); // no inversion left
+    }
+  });
+
   it('simulateCookerSummary gives the same outcomes, balance and events as simulateCooker', () => {
     const weather = variedWeather(2, 7);
     const opts = { initialStoreTempC: 80, altitudeM: 500, loads: dailyLoads(2) };
