@@ -86,7 +86,10 @@ describe('cooker register', () => {
     expect(r.json.date).toBe('2026-12-10');
     expect(r.json.series.t).toHaveLength(145); // 10-min step boundaries, local midnight to midnight
     expect(r.json.series.t[1] - r.json.series.t[0]).toBe(600_000);
-    for (const q of r.json.series.charge) expect(q).toBeGreaterThanOrEqual(0), expect(q).toBeLessThanOrEqual(1);
+    for (const q of r.json.series.charge) {
+      expect(q).toBeGreaterThanOrEqual(0);
+      expect(q).toBeLessThanOrEqual(1);
+    }
     expect(r.json.balance.relativeError).toBeLessThan(1e-3);
     // Night: no sun on the aperture at local midnight (the kitchen is at 12° N in UTC+0).
     expect(r.json.series.gApertureWm2[0]).toBe(0);
