@@ -360,6 +360,7 @@ function whyNotPlaced(m: PModel, relax: Relaxation, evals: CookerEvaluator[], st
     }
   }
   const need = Math.round(b.raw.minTempC);
+  const others = m.cookers.some((c) => relax.possible[b.idx]?.[c.idx]?.some((x) => x) && (st.evs[c.idx]?.loads.length ?? 0) > 0);
   if (!anyFree) {
     return {
       batchId: b.id,
@@ -377,7 +378,7 @@ function whyNotPlaced(m: PModel, relax: Relaxation, evals: CookerEvaluator[], st
   return {
     batchId: b.id,
     reason: 'no-cooker-hot-enough',
-    detail: `alongside the other batches no store can bring the pot to ${need} °C and hold it ${Math.round(b.raw.holdS / 60)} min before ${m.clock(b.serveBy)}`,
+    detail: `${others ? 'alongside the other batches, ' : ''}no store can bring the pot to ${need} °C and hold it ${Math.round(b.raw.holdS / 60)} min before ${m.clock(b.serveBy)}: the store cools as the pot draws its heat (hottest ${Math.round(hottest)} °C at ${m.clock(hottestAt)}, ${hottestCooker})`,
   };
 }
 

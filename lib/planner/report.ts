@@ -61,17 +61,31 @@ export function failureDetail(m: PModel, e: CookerEvaluator, ev: Evaluation, j: 
   const b = m.batches[l.b] as PBatch;
   const o = ev.out[j] as LoadOut;
   const need = Math.round(b.raw.minTempC);
-  if (ev.store.length === 0) return `there is no time to hold ${Math.round(b.raw.holdS / 60)} min between ${m.clock(l.s)} and ${m.clock(ev.maxEnd[j] as number)} on this pot`;
-  const i0 = Math.round((l.s - e.c.t0) / STEP_MS);
-  const i1 = Math.min(e.c.n, Math.ceil(((ev.maxEnd[j] as number) - e.c.t0) / STEP_MS));
-  let iMax = i0;
-  for (let i = i0; i <= i1; i++) if ((e.storeAt(ev, i) as number) > (e.storeAt(ev, iMax) as number)) iMax = i;
-  const hot = e.storeAt(ev, iMax);
-  const at = e.c.t0 + iMax * STEP_MS;
-  if (o.reachedMs === null) {
-    return `the store would be at most ${Math.round(hot)} °C at ${m.clock(at)} (${e.c.name}); this dish needs ${need} °C in the pot by ${m.clock((ev.maxEnd[j] as number) - b.holdMs)}`;
+  const holdMin = Math.round(b.raw.holdS / 60);
+  const maxEnd = ev.maxEnd[j] as number;
+  // Is the deadline set by the next batch on the same pot?
+  let next: Load | undefined;
+  for (let k = j + 1; k < ev.loads.length; k++) {
+    const lk = ev.loads[k] as Load;
+    if (lk.p === l.p) {
+      next = lk;
+      break;
+    }
   }
-  const iEnd = Math.min(e.c.n, Math.round(((ev.maxEnd[j] as number) - e.c.t0) / STEP_MS));
-  return `the pot reaches ${need} °C at ${m.clock(o.reachedMs)} but cannot hold it ${Math.round(b.raw.holdS / 60)} min before ${m.clock(ev.maxEnd[j] as number)}: the store would be ${Math.round(e.storeAt(ev, iEnd))} °C at ${m.clock(e.c.t0 + iEnd * STEP_MS)} (${e.c.name})`;
+  const byNext = next !== undefined && next.s - m.turnMs === maxEnd;
+  const deadline = byNext && next
+    ? `${m.clock(maxEnd)}, when the pot must be free for ${(m.batches[next.b] as PBatch).raw.dishName} at ${m.clock(next.s)}`
+    : `${m.clock(maxEnd)}`;
+  if (ev.store.length === 0) return `there is no time to hold ${holdMin} min between ${m.clock(l.s)} and ${deadline}`;
+  const i0 = Math.round((l.s - e.c.t0) / STEP_MS);
+  const i1 = Math.min(e.c.n, Math.round((maxEnd - e.c.t0) / STEP_MS));
+  let iMin = i0;
+  for (let i = i0; i <= i1; i++) if (e.storeAt(ev, i) < e.storeAt(ev, iMin)) iMin = i;
+  const low = Math.round(e.storeAt(ev, iMin));
+  const lowAt = m.clock(e.c.t0 + iMin * STEP_MS);
+  if (o.reachedMs === null) {
+    const potMax = Number.isFinite(o.maxPotC) ? `${Math.round(o.maxPotC)} °C` : 'less';
+    return `the pot would reach only ${potMax} before ${m.clock(maxEnd)} and the store would be ${low} °C at ${lowAt} (${e.c.name}); this dish needs ${need} °C`;
+  }
+  return `the pot reaches ${need} °C at ${m.clock(o.reachedMs)} but could not hold it ${holdMin} min before ${deadline}; the store would be ${low} °C at ${lowAt} (${e.c.name})`;
 }
-

@@ -44,6 +44,7 @@ export function simulateCookerLoads(p: PlannerProblem, c: PlannerCooker, loads: 
       foodKg: l.batch.foodKg,
       foodCpJPerKgK: l.batch.foodCpJPerKgK,
       waterKg: l.batch.waterKg,
+      ...(l.batch.fixed?.contentsTempC !== undefined && l.startMs < (c.weather[0]?.t ?? 0) ? { initialTempC: l.batch.fixed.contentsTempC } : {}),
       lidOn: l.batch.lidOn,
       minTempC: l.batch.minTempC,
       holdS: l.batch.holdS,
