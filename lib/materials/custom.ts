@@ -58,7 +58,7 @@ export function validateCustomTable(table: CustomMediumTable, path = 'customTabl
   }
 }
 
-/** Linear interpolation of column `get` at T, held constant beyond the ends (binary search for the interval). */
+/** Linear interpolation of a tabulated property vs temperature [°C], held at the end values beyond the table (binary search). */
 function interpolator(ts: Float64Array, vs: Float64Array): (tC: number) => number {
   const n = ts.length;
   return (tC: number): number => {

@@ -24,7 +24,9 @@ interface LinearProperty {
   value: number;
   slopePerK: number;
 }
+/** A linear property through value at refC [°C] with slopePerK [unit/K] (0 = constant). */
 const lin = (refC: number, value: number, slopePerK = 0): LinearProperty => ({ refC, value, slopePerK });
+/** Evaluate a linear property at T [°C]. */
 const evalLin = (p: LinearProperty, tC: number): number => p.value + p.slopePerK * (tC - p.refC);
 
 export interface PcmParameters {

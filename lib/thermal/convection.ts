@@ -166,6 +166,7 @@ function filmGroupsExact(medium: StorageMedium, tC: number, out: Float64Array): 
 }
 
 const ROW = new Float64Array(4);
+/** Fill table row i (temperature FILM_TABLE_MIN_C + i·FILM_TABLE_STEP_K) with the exact property groups. */
 function fillRow(t: FilmGroupTable, medium: StorageMedium, i: number): void {
   const ok = filmGroupsExact(medium, FILM_TABLE_MIN_C + i * FILM_TABLE_STEP_K, ROW);
   t.gb[i] = ok ? ROW[0]! : Number.NaN;
@@ -191,6 +192,7 @@ function filmGroupTable(medium: StorageMedium): FilmGroupTable {
   return t;
 }
 
+/** Property groups at tC from a medium's table (see filmGroups). */
 function filmGroupsFromTable(t: FilmGroupTable, medium: StorageMedium, tC: number, out: Float64Array): boolean {
   const x = (tC - FILM_TABLE_MIN_C) / FILM_TABLE_STEP_K;
   if (!(x >= 0 && x < FILM_TABLE_SIZE - 1)) return filmGroupsExact(medium, tC, out);

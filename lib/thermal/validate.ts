@@ -12,9 +12,11 @@ export const MAX_STORE_NODES = 200;
 /** Altitude range of the ISA troposphere formula used for the boiling point [m]. */
 export const ALTITUDE_RANGE_M = { min: -500, max: 11000 } as const;
 
+/** True for a finite number (no NaN, no ±Infinity). */
 function isFiniteNumber(v: unknown): v is number {
   return typeof v === 'number' && Number.isFinite(v);
 }
+/** The value if finite, else a RangeError naming the field; nonNegative and positive add their bound. */
 function finite(v: unknown, field: string): number {
   if (typeof v !== 'number' || !Number.isFinite(v)) throw new RangeError(`${field} must be a finite number (got ${String(v)})`);
   return v;
