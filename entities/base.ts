@@ -2,9 +2,9 @@ import { randomUUID } from 'node:crypto';
 import type { EntitySchemaMetadata, OptionalProps } from '@mikro-orm/core';
 
 /** Fields every entity carries. */
-export interface Base {
-  /** Filled on create; optional in em.create(). */
-  [OptionalProps]?: 'id' | 'createdAt' | 'updatedAt';
+export interface Base<Optional extends string = never> {
+  /** Filled on create (or defaulted); optional in em.create(). */
+  [OptionalProps]?: 'id' | 'createdAt' | 'updatedAt' | Optional;
   id: string;
   createdAt: Date;
   updatedAt: Date;

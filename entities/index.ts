@@ -8,6 +8,9 @@ import { AuditEventSchema } from './audit-event';
 import { LoginAttemptSchema } from './login-attempt';
 import { StorageMediumSchema } from './storage-medium';
 import { CookerSchema } from './cooker';
+import { DishSchema } from './dish';
+import { MenuLineSchema } from './menu-line';
+import { PlanSchema } from './plan';
 
 export * from './base';
 export * from './organisation';
@@ -20,6 +23,9 @@ export * from './audit-event';
 export * from './login-attempt';
 export * from './storage-medium';
 export * from './cooker';
+export * from './dish';
+export * from './menu-line';
+export * from './plan';
 
 /** Every entity, listed explicitly for mikro-orm.config.ts. */
 export const allEntities = [
@@ -33,4 +39,7 @@ export const allEntities = [
   LoginAttemptSchema,
   StorageMediumSchema,
   CookerSchema,
+  DishSchema,
+  MenuLineSchema,
+  PlanSchema,
 ];

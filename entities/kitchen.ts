@@ -2,7 +2,7 @@ import { EntitySchema } from '@mikro-orm/core';
 import { baseProperties, type Base, type Locale } from './base';
 import type { Organisation } from './organisation';
 
-export interface Kitchen extends Base {
+export interface Kitchen extends Base<'planning'> {
   organisation: Organisation;
   name: string;
   /** [°] north positive */
@@ -14,7 +14,27 @@ export interface Kitchen extends Base {
   /** IANA time zone, e.g. "Africa/Nairobi" */
   timeZone: string;
   locale: Locale;
+  /** Cooks' shift, turnaround between batches and backup fuels on hand (see KitchenPlanning). */
+  planning: KitchenPlanning;
 }
+
+/** How a kitchen plans: shift hours (local HH:MM), turnaround, currency and backup stoves with local prices. */
+export interface KitchenPlanning {
+  shiftStart: string;
+  shiftEnd: string;
+  turnaroundMin: number;
+  currency: string;
+  /** Backup stoves on hand: stove id (lib/fuel STOVES), measured efficiency [0–1] if known, price per kg or kWh. */
+  fuels: { stoveId: string; efficiency?: number; price?: number }[];
+}
+
+export const DEFAULT_PLANNING: KitchenPlanning = {
+  shiftStart: '06:00',
+  shiftEnd: '19:00',
+  turnaroundMin: 15,
+  currency: 'USD',
+  fuels: [{ stoveId: 'lpg' }, { stoveId: 'three-stone-wood' }],
+};
 
 export const KitchenSchema = new EntitySchema<Kitchen>({
   name: 'Kitchen',
@@ -28,5 +48,6 @@ export const KitchenSchema = new EntitySchema<Kitchen>({
     altitudeM: { type: 'double' },
     timeZone: { type: 'string', length: 64 },
     locale: { type: 'string', length: 8, default: 'en' },
+    planning: { type: 'json', onCreate: () => structuredClone(DEFAULT_PLANNING) },
   },
 });
