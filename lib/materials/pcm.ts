@@ -120,7 +120,9 @@ export const erythritol: StorageMedium = createPhaseChangeMaterial({
   cpSolid: lin(20, 1383),
   cpLiquid: lin(140, 2765),
   densitySolid: lin(20, 1480),
-  densityLiquid: lin(140, 1300),
+  // Liquid expansion −0.8 kg/(m³·K) (β ≈ 6e-4 1/K): assumed, typical of organic liquids, no source. Without it the melt
+  // would have β = 0 and no natural convection at the pot.
+  densityLiquid: lin(140, 1300, -0.8),
   kSolid: lin(20, 0.733),
   kLiquid: lin(140, 0.326),
   // ≈ 28.6 mPa·s at 140 °C (from memory, uncertain); held constant (no source for its temperature dependence).
@@ -152,7 +154,8 @@ export const magnesiumChlorideHexahydrate: StorageMedium = createPhaseChangeMate
   cpSolid: lin(20, 2250),
   cpLiquid: lin(120, 2610),
   densitySolid: lin(20, 1569),
-  densityLiquid: lin(120, 1450),
+  // Liquid expansion −0.6 kg/(m³·K): assumed for a salt-hydrate melt, no source (β = 0 would suppress convection).
+  densityLiquid: lin(120, 1450, -0.6),
   kSolid: lin(90, 0.694),
   kLiquid: lin(120, 0.57),
   // Assumed, no source: order of magnitude of a concentrated salt-hydrate melt.
@@ -186,7 +189,8 @@ export const dMannitol: StorageMedium = createPhaseChangeMaterial({
   cpSolid: lin(20, 1600),
   cpLiquid: lin(170, 2400),
   densitySolid: lin(20, 1490),
-  densityLiquid: lin(170, 1330),
+  // Liquid expansion −0.8 kg/(m³·K): assumed, typical of organic liquids, no source.
+  densityLiquid: lin(170, 1330, -0.8),
   kSolid: lin(20, 0.6),
   kLiquid: lin(170, 0.2),
   // Assumed, no source: sugar-alcohol melts are viscous; order of magnitude.
@@ -217,7 +221,8 @@ export const acetanilide: StorageMedium = createPhaseChangeMaterial({
   cpSolid: lin(20, 1320),
   cpLiquid: lin(120, 2000),
   densitySolid: lin(20, 1219),
-  densityLiquid: lin(120, 1050),
+  // Liquid expansion −0.8 kg/(m³·K): assumed, typical of organic liquids, no source.
+  densityLiquid: lin(120, 1050, -0.8),
   kSolid: lin(20, 0.2),
   kLiquid: lin(120, 0.17),
   viscosityLiquid: () => 0.0022, // ≈ 2.2 mPa·s near 120 °C (from memory, uncertain)

@@ -244,8 +244,13 @@ export function createNaturalConvectionCoupling(
   const floorLength = g.diameterM / 4;
   const grp = new Float64Array(4);
   const table = filmGroupTable(medium);
+  const liquidusC = medium.melting?.liquidusC;
   return (tStoreC: number, tPotC: number): number => {
-    const liquid = filmGroupsFromTable(table, medium, 0.5 * (tStoreC + tPotC), grp);
+    let liquid = filmGroupsFromTable(table, medium, 0.5 * (tStoreC + tPotC), grp);
+    // A molten PCM store under a cold pot: the film mean falls below the melting range, but the melt that
+    // convects is liquid (erythritol in particular supercools tens of kelvin). Evaluate the melt just above
+    // its liquidus instead of treating the whole store as solid. A frozen crust on the pot is not modelled.
+    if (!liquid && liquidusC !== undefined && tStoreC > liquidusC) liquid = filmGroupsFromTable(table, medium, liquidusC + 1, grp);
     const k = grp[3]!;
     const hFloor = k / floorLength;
     if (!liquid) return hFloor * contactAreaM2;

@@ -1,0 +1,52 @@
+import { z } from 'zod';
+import { COOK_METHODS } from '@/entities/dish';
+import { STOVES } from '@/lib/fuel';
+
+const STOVE_IDS = Object.keys(STOVES) as [string, ...string[]];
+const num = (what: string, min: number, max: number, unit: string) =>
+  z.number({ message: `${what} is a number (${unit}).` }).min(min, `${what} is at least ${min} ${unit}.`).max(max, `${what} is at most ${max} ${unit}.`);
+
+export const dishFields = {
+  name: z.string({ message: 'Name the dish.' }).trim().min(1, 'Name the dish.').max(200, 'At most 200 characters.'),
+  method: z.enum(COOK_METHODS, { message: `Method is one of: ${COOK_METHODS.join(', ')}.` }),
+  servingsPerBatch: z.number({ message: 'Servings per batch is a whole number.' }).int('Servings per batch is a whole number.').min(1, 'At least 1 serving.').max(5000, 'At most 5000 servings.'),
+  foodKgPerServing: num('Food per serving', 0, 5, 'kg'),
+  waterKgPerServing: num('Water per serving', 0, 5, 'kg'),
+  foodCpJPerKgK: num('Food specific heat', 500, 4500, 'J/(kg·K)').default(3500),
+  litresPerServing: num('Pot volume per serving', 0.05, 10, 'L'),
+  minPotTempC: num('Minimum pot temperature', 40, 250, '°C'),
+  holdMin: num('Hold time', 1, 600, 'min'),
+  safeCoreTempC: num('Safe core temperature', 40, 100, '°C'),
+  lidOn: z.boolean({ message: 'Lid on is true or false.' }).default(true),
+  backupStove: z.enum(STOVE_IDS, { message: `Backup stove is one of: ${STOVE_IDS.join(', ')}.` }).default('lpg'),
+  notes: z.string().trim().max(1000, 'At most 1000 characters.').nullable().optional(),
+};
+
+const refineDish = (v: { foodKgPerServing?: number; waterKgPerServing?: number; minPotTempC?: number; safeCoreTempC?: number }, ctx: z.RefinementCtx) => {
+  if (v.foodKgPerServing === 0 && v.waterKgPerServing === 0) ctx.addIssue({ code: 'custom', path: ['foodKgPerServing'], message: 'A serving needs some food or water.' });
+  if (v.minPotTempC !== undefined && v.safeCoreTempC !== undefined && v.minPotTempC < v.safeCoreTempC)
+    ctx.addIssue({ code: 'custom', path: ['minPotTempC'], message: 'The pot must reach at least the safe core temperature of the food.' });
+};
+
+export const createDishSchema = z.strictObject(dishFields).superRefine(refineDish);
+export const updateDishSchema = z
+  .strictObject(Object.fromEntries(Object.entries(dishFields).map(([k, v]) => [k, v.optional()])) as { [K in keyof typeof dishFields]: z.ZodOptional<(typeof dishFields)[K]> })
+  .superRefine(refineDish);
+export type DishInput = z.infer<typeof createDishSchema>;
+
+/** CSV columns of the dish import/export, in order (our own header; documented in the UI). */
+export const DISH_CSV_COLUMNS = [
+  'name',
+  'method',
+  'servings_per_batch',
+  'food_kg_per_serving',
+  'water_kg_per_serving',
+  'food_cp_j_per_kg_k',
+  'litres_per_serving',
+  'min_pot_temp_c',
+  'hold_min',
+  'safe_core_temp_c',
+  'lid_on',
+  'backup_stove',
+  'notes',
+] as const;

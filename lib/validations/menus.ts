@@ -1,0 +1,20 @@
+import { z } from 'zod';
+
+export const localDate = z.string({ message: 'Give a date as YYYY-MM-DD.' }).regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD.').refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), 'That date does not exist.');
+export const clock = z.string({ message: 'Give a time as HH:MM.' }).regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use a 24-hour time as HH:MM, e.g. 12:30.');
+
+export const menuLineSchema = z
+  .strictObject({
+    dishId: z.uuid({ message: 'Choose a dish.' }),
+    servings: z.number({ message: 'Servings is a whole number.' }).int('Servings is a whole number.').min(1, 'At least 1 serving.').max(20000, 'At most 20 000 servings.'),
+    serveBy: clock,
+    earliestStart: clock.nullable().optional(),
+  })
+  .superRefine((v, ctx) => {
+    if (v.earliestStart && v.earliestStart >= v.serveBy) ctx.addIssue({ code: 'custom', path: ['earliestStart'], message: 'The earliest start must be before the serving time.' });
+  });
+
+/** The whole menu of a day, replaced at once (a lead edits the list, then saves). */
+export const putMenuSchema = z.strictObject({ lines: z.array(menuLineSchema).max(200, 'At most 200 lines a day.') });
+export const copyMenuSchema = z.strictObject({ fromDate: localDate });
+export const dateQuery = z.strictObject({ date: localDate });
