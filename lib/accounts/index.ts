@@ -93,7 +93,8 @@ export async function acceptInvitation(em: EntityManager, input: { token: string
       user.passwordHash = passwordHash;
       user.name = input.name;
     } else {
-      user = tx.create(UserSchema, { email: inv.email, passwordHash, name: input.name, locale, temperatureUnit: 'C' });
+      // The id is set here, not at flush: the audit event below names the new user as its actor.
+      user = tx.create(UserSchema, { id: randomUUID(), email: inv.email, passwordHash, name: input.name, locale, temperatureUnit: 'C' });
     }
     const existing = await tx.findOne(MembershipSchema, { user, organisation: inv.organisation, kitchen: inv.kitchen, role: inv.role });
     if (!existing) {
