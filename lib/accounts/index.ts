@@ -106,7 +106,11 @@ export async function acceptInvitation(em: EntityManager, input: { token: string
   });
 }
 
-/** Starts a reset. Always resolves the same way, whether or not the address is registered. */
+/**
+ * Starts a reset. Always resolves the same way, whether or not the address is registered, but not
+ * in the same time (a row and a mail for a registered one): run it after answering the request
+ * (the route uses next/server `after`), so its duration does not tell which addresses exist.
+ */
 export async function requestPasswordReset(em: EntityManager, email: string): Promise<void> {
   const user = await em.findOne(UserSchema, { email });
   if (!user) return;
