@@ -93,7 +93,8 @@ export async function acceptInvitation(em: EntityManager, input: { token: string
       user.passwordHash = passwordHash;
       user.name = input.name;
     } else {
-      user = tx.create(UserSchema, { email: inv.email, passwordHash, name: input.name, locale, temperatureUnit: 'C' });
+      // The id is set here, not at flush: the audit event below names the new user as its actor.
+      user = tx.create(UserSchema, { id: randomUUID(), email: inv.email, passwordHash, name: input.name, locale, temperatureUnit: 'C' });
     }
     const existing = await tx.findOne(MembershipSchema, { user, organisation: inv.organisation, kitchen: inv.kitchen, role: inv.role });
     if (!existing) {
@@ -105,7 +106,11 @@ export async function acceptInvitation(em: EntityManager, input: { token: string
   });
 }
 
-/** Starts a reset. Always resolves the same way, whether or not the address is registered. */
+/**
+ * Starts a reset. Always resolves the same way, whether or not the address is registered, but not
+ * in the same time (a row and a mail for a registered one): run it after answering the request
+ * (the route uses next/server `after`), so its duration does not tell which addresses exist.
+ */
 export async function requestPasswordReset(em: EntityManager, email: string): Promise<void> {
   const user = await em.findOne(UserSchema, { email });
   if (!user) return;

@@ -6,18 +6,22 @@ export interface ErrorBody {
   error: { code: string; message: string; fields?: Record<string, string> };
 }
 
-/** Maps zod issues to { "a.b": "message" } so a form can show each next to its field. */
+/**
+ * Maps zod issues to { "a.b": "message" } so a form can show each next to its field. Collected in a
+ * Map: the keys come from the request, and assigning `fields["__proto__"]` on a plain object would
+ * set its prototype instead of naming the unknown field.
+ */
 export function zodFields(err: ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
+  const fields = new Map<string, string>();
   for (const issue of err.issues) {
-    const key = issue.path.length ? issue.path.join('.') : '(body)';
     if (issue.code === 'unrecognized_keys') {
-      for (const k of issue.keys) fields[[...issue.path, k].join('.')] = 'Unknown field; remove it.';
+      for (const k of issue.keys) fields.set([...issue.path, k].join('.'), 'Unknown field; remove it.');
       continue;
     }
-    fields[key] ??= issue.message;
+    const key = issue.path.length ? issue.path.join('.') : '(body)';
+    if (!fields.has(key)) fields.set(key, issue.message);
   }
-  return fields;
+  return Object.fromEntries(fields);
 }
 
 export function errorResponse(err: unknown): NextResponse<ErrorBody> {

@@ -34,6 +34,13 @@ const errorSchema = {
 
 const toSchema = (s: ZodType) => z.toJSONSchema(s, { io: 'input', unrepresentable: 'any', target: 'draft-2020-12' });
 
+/** A request body's schema, always with a `required` list (empty when every field is optional, e.g. a PATCH). */
+function bodySchema(s: ZodType) {
+  const schema = toSchema(s) as ReturnType<typeof toSchema> & { type?: unknown; required?: string[] };
+  if (schema.type === 'object') schema.required ??= [];
+  return schema;
+}
+
 /** Builds the OpenAPI 3.1 document from the operations. */
 export function buildOpenApi(operations: Operation[], info: { version: string; serverUrl: string }) {
   const paths: Record<string, Record<string, unknown>> = {};
@@ -56,7 +63,7 @@ export function buildOpenApi(operations: Operation[], info: { version: string; s
       tags: [op.tag],
       ...(op.roles.length ? { security: [{ session: [] }], description: `Roles: ${op.roles.join(', ')}.` } : { security: [] }),
       ...(params.length ? { parameters: params } : {}),
-      ...(op.body ? { requestBody: { required: true, content: { 'application/json': { schema: toSchema(op.body) } } } } : {}),
+      ...(op.body ? { requestBody: { required: true, content: { 'application/json': { schema: bodySchema(op.body) } } } } : {}),
       responses,
     };
   }

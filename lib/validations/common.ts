@@ -12,7 +12,22 @@ export const password = z
   .string({ message: 'Enter a password.' })
   .min(10, 'Use at least 10 characters.')
   .max(200, 'Use at most 200 characters.');
-export const personName = z.string({ message: 'Enter a name.' }).trim().min(1, 'Enter a name.').max(200, 'At most 200 characters.');
+/**
+ * Control characters (PostgreSQL refuses NUL in text, and none belongs in a name) and unpaired
+ * UTF-16 surrogates (not encodable in UTF-8: the database would silently store U+FFFD instead).
+ * Format characters such as the zero-width joiner of emoji sequences or Arabic marks stay allowed.
+ */
+const CONTROL_OR_LONE_SURROGATE = /[\p{Cc}\p{Cs}]/u;
+
+/** A name a person typed (of a person, a kitchen, …): 1–200 characters, trimmed, printable. */
+export const displayName = () =>
+  z
+    .string({ message: 'Enter a name.' })
+    .trim()
+    .min(1, 'Enter a name.')
+    .max(200, 'At most 200 characters.')
+    .refine((s) => !CONTROL_OR_LONE_SURROGATE.test(s), 'Remove the control characters (e.g. tabs or line breaks) and broken characters from the name.');
+export const personName = displayName();
 export const role = z.enum(ROLES, { message: `Role must be one of: ${ROLES.join(', ')}.` });
 export const locale = z.enum(LOCALES, { message: `Language must be one of: ${LOCALES.join(', ')}.` });
 export const temperatureUnit = z.enum(TEMPERATURE_UNITS, { message: 'Temperature unit must be C or F.' });

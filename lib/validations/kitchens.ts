@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { locale } from './common';
+import { displayName, locale } from './common';
 
 function isTimeZone(tz: string): boolean {
   try {
@@ -11,7 +11,7 @@ function isTimeZone(tz: string): boolean {
 }
 
 export const kitchenFields = {
-  name: z.string({ message: 'Enter a name.' }).trim().min(1, 'Enter a name.').max(200, 'At most 200 characters.'),
+  name: displayName(),
   latitude: z.number({ message: 'Latitude is a number of degrees.' }).min(-90, 'Latitude is between −90 and 90°.').max(90, 'Latitude is between −90 and 90°.'),
   longitude: z.number({ message: 'Longitude is a number of degrees.' }).min(-180, 'Longitude is between −180 and 180°.').max(180, 'Longitude is between −180 and 180°.'),
   altitudeM: z.number({ message: 'Altitude is a number of metres.' }).min(-450, 'Altitude is at least −450 m.').max(6000, 'Altitude is at most 6000 m.'),
@@ -29,4 +29,5 @@ export const updateKitchenSchema = z
     timeZone: kitchenFields.timeZone.optional(),
     locale: kitchenFields.locale.optional(),
   })
-  .refine((v) => Object.keys(v).length > 0, { message: 'Send at least one field to change.' });
+  .refine((v) => Object.keys(v).length > 0, { message: 'Send at least one field to change.' })
+  .meta({ minProperties: 1 }); // the refinement, as the OpenAPI document can say it

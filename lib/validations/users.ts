@@ -3,7 +3,8 @@ import { email, locale, password, personName, role, temperatureUnit, token, uuid
 
 export const updateMeSchema = z
   .strictObject({ name: personName.optional(), locale: locale.optional(), temperatureUnit: temperatureUnit.optional() })
-  .refine((v) => Object.keys(v).length > 0, { message: 'Send at least one of name, locale, temperatureUnit.' });
+  .refine((v) => Object.keys(v).length > 0, { message: 'Send at least one of name, locale, temperatureUnit.' })
+  .meta({ minProperties: 1 }); // the refinement, as the OpenAPI document can say it
 
 export const createInvitationSchema = z
   .strictObject({

@@ -10,6 +10,7 @@ export class Client {
     if (this.cookie) headers.cookie = this.cookie;
     let payload: string | Uint8Array<ArrayBuffer> | undefined;
     if (opts.raw !== undefined) {
+      // A Buffer may sit on a shared ArrayBufferLike, which fetch's BodyInit type does not take; copy it.
       payload = typeof opts.raw === 'string' ? opts.raw : new Uint8Array(opts.raw);
       headers['content-type'] ??= 'application/json';
     } else if (body !== undefined) {
@@ -29,7 +30,7 @@ export class Client {
     } catch {
       json = null;
     }
-    // Tests read arbitrary JSON paths and assert on them; a loose type keeps them short.
+    // Tests read bodies of every shape and assert on them; typing each would not make them safer.
     // eslint-disable-next-line @typescript-eslint/no-explicit-any
     return { status: res.status, headers: res.headers, json: json as Record<string, any>, text };
   }
