@@ -2,6 +2,10 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { CookerSchema, KitchenSchema, MembershipSchema, OrganisationSchema, UserSchema, type Kitchen, type Locale, type Organisation, type Role } from '@/entities';
 import { hashPassword } from '@/lib/auth/password';
 import { DEMO_COOKERS } from './cookers';
+import { DEMO_DISHES, DEMO_MENUS } from './menus';
+import { DishSchema, MenuLineSchema, PlanSchema } from '@/entities';
+import { createDraft, publishDraft } from '@/lib/plans';
+import { addDays, localDateString } from '@/lib/time';
 
 /**
  * The demo scenario: an invented network of three community kitchens in sunny places (real
@@ -51,6 +55,7 @@ export async function seedDemo(em: EntityManager): Promise<{ organisation: Organ
         if (k) bySlug[d.slug] = k;
       }
       await seedDemoCookers(tx, bySlug);
+      await seedDemoDishes(tx, existing);
       return { organisation: existing, kitchens: bySlug, created: false };
     }
     const organisation = tx.create(OrganisationSchema, { name: DEMO_ORG });
@@ -66,6 +71,7 @@ export async function seedDemo(em: EntityManager): Promise<{ organisation: Organ
       tx.create(MembershipSchema, { user, organisation, kitchen, role: a.role });
     }
     await seedDemoCookers(tx, kitchens);
+    await seedDemoDishes(tx, organisation);
     return { organisation, kitchens, created: true };
   });
 }
@@ -79,4 +85,36 @@ async function seedDemoCookers(em: EntityManager, kitchens: Record<string, Kitch
       em.create(CookerSchema, { ...rest, pots: pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 })), kitchen, customMedium: null, archived: false });
     }
   }
+}
+
+async function seedDemoDishes(em: EntityManager, organisation: Organisation): Promise<void> {
+  if ((await em.count(DishSchema, { organisation })) > 0) return;
+  for (const d of DEMO_DISHES) em.create(DishSchema, { ...d, notes: d.notes ?? null, organisation, archived: false });
+}
+
+/**
+ * Today's and tomorrow's menus and plans in every demo kitchen (local dates): a published plan for
+ * today so cooks see slots at once, a solved draft for tomorrow for the lead. Days that already have
+ * a menu keep it and days that have a plan keep it, so a lead's own work survives a restart.
+ */
+export async function seedDemoPlans(em: EntityManager, kitchens: Record<string, Kitchen>, opts: { timeLimitS?: number; now?: number } = {}): Promise<string[]> {
+  const done: string[] = [];
+  for (const [slug, kitchen] of Object.entries(kitchens)) {
+    const today = localDateString(opts.now ?? Date.now(), kitchen.timeZone);
+    for (const [date, publish] of [[today, true], [addDays(today, 1), false]] as const) {
+      if ((await em.count(MenuLineSchema, { kitchen, date })) === 0) {
+        const dishes = await em.find(DishSchema, { organisation: kitchen.organisation.id });
+        (DEMO_MENUS[slug] ?? []).forEach((line, i) => {
+          const dish = dishes.find((d) => d.name === line.dish);
+          if (dish) em.create(MenuLineSchema, { kitchen, date, dish, servings: line.servings, serveBy: line.serveBy, earliestStart: line.earliestStart ?? null, position: i });
+        });
+        await em.flush();
+      }
+      if ((await em.count(PlanSchema, { kitchen, date })) > 0) continue;
+      const draft = await createDraft(em, kitchen, null, date, opts.timeLimitS ?? 2);
+      if (publish) await publishDraft(em, kitchen, null, draft.id);
+      done.push(`${kitchen.name} ${date}${publish ? ' (published)' : ' (draft)'}`);
+    }
+  }
+  return done;
 }

@@ -1,5 +1,5 @@
 import { clearSkyHourly, resolveWeatherToAperture, type ApertureGeometry, type HourlyWeather, type Site } from '@/lib/solar';
-import { boilingPointAtAltitudeC, simulateCooker, type CookerSpec, type PotLoad, type SimulationResult } from '@/lib/thermal';
+import { boilingPointAtAltitudeC, simulateCooker, simulateCookerSummary, type CookerSpec, type PotLoad, type SimulationResult, type WeatherStep } from '@/lib/thermal';
 import { addDays, zonedDayBoundsMs, zonedTimeToUtcMs } from '@/lib/time';
 
 export type WeatherSource = 'forecast' | 'stale-forecast' | 'upload' | 'clear-sky';
@@ -13,6 +13,8 @@ export interface DayPredictionInput {
   geometry: ApertureGeometry;
   /** Hourly weather covering the day before and the day (for spin-up); clear sky when absent. */
   hourly?: HourlyWeather[];
+  /** Where `hourly` came from; default 'forecast'. */
+  hourlySource?: WeatherSource;
   /** Store temperature at local midnight [°C]; when absent, the store is spun up over the previous day. */
   initialStoreTempC?: number;
   /** Batches; when absent, one reference batch of water in the first pot shows when a pot gets hot. */
@@ -38,36 +40,56 @@ export interface DayPrediction {
 
 const STEP_S = 60;
 
+export interface PreparedDay {
+  source: WeatherSource;
+  /** 60-s aperture steps over the local day. */
+  steps: WeatherStep[];
+  /** Store temperature at local midnight [°C] (given, or from the one-day spin-up). */
+  initialStoreTempC: number;
+}
+
 /**
- * Predicts a cooker's day: weather → aperture irradiance (lib/solar) → store and pot simulation
- * (lib/thermal), minute by minute, returned at a coarser resolution for charts.
- * Without a starting temperature the store is first simulated over the previous day from its lowest
- * useful temperature (a one-day spin-up), so the morning state follows from yesterday's sun.
+ * The local day's aperture weather and the store's midnight temperature: the common first half of
+ * a prediction and of a plan. Without a starting temperature the store is simulated over the
+ * previous day from its lowest useful temperature (a one-day spin-up).
  */
-export function predictDay(input: DayPredictionInput): DayPrediction {
+export function prepareDay(input: Pick<DayPredictionInput, 'site' | 'timeZone' | 'date' | 'spec' | 'geometry' | 'hourly' | 'hourlySource' | 'initialStoreTempC' | 'clearness'>): PreparedDay {
   const [dayStart, dayEnd] = zonedDayBoundsMs(input.date, input.timeZone);
   const prevStart = zonedDayBoundsMs(addDays(input.date, -1), input.timeZone)[0];
-  const source: WeatherSource = input.hourly ? 'forecast' : 'clear-sky';
-  const hourly =
-    input.hourly ??
-    clearSkyHourly(input.site, prevStart - 3_600_000, dayEnd + 3_600_000, { clearness: input.clearness ?? 1, tAirC: { minC: 16, maxC: 31 } });
-  const steps = resolveWeatherToAperture(input.site, input.geometry, hourly, STEP_S);
-  const firstT = steps[0]?.t ?? dayStart;
+  const source: WeatherSource = input.hourly ? (input.hourlySource ?? 'forecast') : 'clear-sky';
+  const hourly = input.hourly ?? clearSkyForDay(input.site, input.timeZone, input.date, input.clearness ?? 1);
+  const all = resolveWeatherToAperture(input.site, input.geometry, hourly, STEP_S);
+  const firstT = all[0]?.t ?? dayStart;
   const from = (ms: number) => Math.max(0, Math.round((ms - firstT) / (STEP_S * 1000)));
-  const day = steps.slice(from(dayStart), from(dayEnd));
-  if (day.length < 60) throw new RangeError('hourly: the weather does not cover the requested day');
+  const steps = all.slice(from(dayStart), from(dayEnd));
+  if (steps.length < 60) throw new RangeError('hourly: the weather does not cover the requested day');
 
   let initialStoreTempC = input.initialStoreTempC;
   if (initialStoreTempC === undefined) {
-    const prev = steps.slice(from(prevStart), from(dayStart));
+    const prev = all.slice(from(prevStart), from(dayStart));
     if (prev.length >= 60) {
-      const spin = simulateCooker(input.spec, prev, { stepS: STEP_S, initialStoreTempC: input.spec.store.minUsefulTempC, altitudeM: input.site.altitudeM });
-      initialStoreTempC = spin.series.storeTempC[spin.series.storeTempC.length - 1] ?? input.spec.store.minUsefulTempC;
+      const spin = simulateCookerSummary(input.spec, prev, { stepS: STEP_S, initialStoreTempC: input.spec.store.minUsefulTempC, altitudeM: input.site.altitudeM });
+      initialStoreTempC = spin.finalStoreTempC;
     } else {
       initialStoreTempC = input.spec.store.minUsefulTempC;
     }
   }
+  return { source, steps, initialStoreTempC };
+}
 
+/**
+ * Predicts a cooker's day: weather → aperture irradiance (lib/solar) → store and pot simulation
+ * (lib/thermal), minute by minute, returned at a coarser resolution for charts.
+ */
+/** Clear-sky hourly weather for a local day and the day before (the spin-up), the fallback of every prediction. */
+export function clearSkyForDay(site: Site, timeZone: string, date: string, clearness = 1): HourlyWeather[] {
+  const [, dayEnd] = zonedDayBoundsMs(date, timeZone);
+  const prevStart = zonedDayBoundsMs(addDays(date, -1), timeZone)[0];
+  return clearSkyHourly(site, prevStart - 3_600_000, dayEnd + 3_600_000, { clearness, tAirC: { minC: 16, maxC: 31 } });
+}
+
+export function predictDay(input: DayPredictionInput): DayPrediction {
+  const { source, steps: day, initialStoreTempC } = prepareDay(input);
   const boilingPointC = boilingPointAtAltitudeC(input.site.altitudeM);
   let referenceLoad: PotLoad | null = null;
   let loads = input.loads;

@@ -38,7 +38,7 @@ const hourlyWeather = z.strictObject({
 });
 
 /** Checks that times increase by one equal step with no gap; names the first bad row. */
-function checkSeries(times: string[], ctx: z.RefinementCtx, path: (string | number)[], expectMs?: number) {
+export function checkSeries(times: string[], ctx: z.RefinementCtx, path: (string | number)[], expectMs?: number) {
   const ms = times.map((t) => Date.parse(t));
   const step = expectMs ?? (ms[1]! - ms[0]!);
   if (!(step > 0)) {
