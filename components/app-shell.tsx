@@ -9,7 +9,7 @@ import { PrefsProvider, type Prefs } from './prefs';
 
 export interface NavItem {
   href: string;
-  key: 'home' | 'kitchen' | 'cookers' | 'people' | 'organisation' | 'settings' | 'mailbox';
+  key: 'home' | 'overview' | 'people' | 'organisation' | 'settings' | 'mailbox';
 }
 
 export interface ShellProps {
@@ -73,16 +73,6 @@ export function AppShell({ user, nav, kitchens, prefs, children }: ShellProps) {
                 {t(item.key)}
               </Link>
             ))}
-            {currentKitchen && (
-              <Link
-                href={`/kitchens/${currentKitchen}/cookers`}
-                aria-current={pathname.startsWith(`/kitchens/${currentKitchen}/cookers`) ? 'page' : undefined}
-                className="rounded-md px-3 py-2 text-sm font-semibold hover:bg-clay-700"
-                onClick={() => setOpen(false)}
-              >
-                {t('cookers')}
-              </Link>
-            )}
           </nav>
           <div className={`${open ? 'flex' : 'hidden'} w-full flex-wrap items-center gap-3 md:ml-auto md:flex md:w-auto`}>
             {kitchens.length > 0 && (

@@ -46,3 +46,8 @@ export function addDays(dateStr: string, days: number): string {
   const [y, m, d] = dateStr.split('-').map(Number) as [number, number, number];
   return new Date(Date.UTC(y, m - 1, d + days)).toISOString().slice(0, 10);
 }
+
+/** Tomorrow's local date in a zone (the day leads usually plan). */
+export function tomorrowIn(timeZone: string, nowMs = Date.now()): string {
+  return addDays(localDateString(nowMs, timeZone), 1);
+}

@@ -14,7 +14,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
   const roles = new Set(viewer.memberships.map((m) => m.role));
   const top = roles.has('coordinator') ? 'coordinator' : roles.has('lead') ? 'lead' : 'cook';
   const nav: NavItem[] = [{ href: '/', key: 'home' }];
-  if (roles.has('coordinator')) nav.push({ href: '/organisation', key: 'organisation' });
+  if (roles.has('coordinator')) nav.push({ href: '/overview', key: 'overview' }, { href: '/organisation', key: 'organisation' });
   if (roles.has('coordinator') || roles.has('lead')) nav.push({ href: '/people', key: 'people' });
   nav.push({ href: '/settings', key: 'settings' });
   if (getEnv().devTools) nav.push({ href: '/dev/mailbox', key: 'mailbox' });

@@ -12,6 +12,8 @@ import { compareWithAllOnWood, planBackupFuel, STOVES, type BackupBatchInput, ty
 import { zonedTimeToUtcMs } from '@/lib/time';
 import { getActiveCookers, getMenuLines, hm, splitIntoBatches, type MenuBatch } from '@/lib/menus';
 import { getPlanningWeather, kitchenSite } from './weather';
+import { getMedium } from '@/lib/materials';
+import { safetyNotesForSlot, type SafetyNote } from '@/lib/safety/notes';
 
 export interface PlanCookerView {
   id: string;
@@ -19,6 +21,7 @@ export interface PlanCookerView {
   pots: { id: string; name: string; volumeL: number }[];
   minUsefulTempC: number;
   maxSafeTempC: number;
+  medium: { kind: 'oil' | 'pcm' | 'custom'; name: string; smokePointC: number | null };
   series: { t: number[]; storeTempC: number[]; charge: number[] };
 }
 
@@ -109,6 +112,7 @@ function cookerViews(prepared: Prepared, result: PlannerResult): PlanCookerView[
       pots: c.pots.map((p) => ({ id: p.id, name: p.name, volumeL: p.volumeL })),
       minUsefulTempC: c.minUsefulTempC,
       maxSafeTempC: c.maxSafeTempC,
+      medium: describeMedium(c),
       series: { t: pick(sim.series.t), storeTempC: pick(sim.series.storeTempC).map((v) => Math.round(v * 10) / 10), charge: pick(sim.series.charge).map((v) => Math.round(v * 1000) / 1000) },
     };
   });
@@ -162,7 +166,32 @@ export function fuelView(kitchen: Kitchen, menuBatches: MenuBatch[], backupIds: 
   return view;
 }
 
+function describeMedium(c: Cooker): PlanCookerView['medium'] {
+  if (c.mediumId === 'custom') return { kind: 'custom', name: c.customMedium?.name ?? 'custom', smokePointC: c.customMedium?.smokePointC ?? null };
+  const m = getMedium(c.mediumId);
+  return { kind: m.kind, name: m.name, smokePointC: m.smokePointC ?? null };
+}
+
+/** Safety notes of every slot, from the dish, the cooker's medium and the store's predicted peak during the slot. */
+export function slotSafetyNotes(batches: MenuBatch[], result: PlannerResult, cookers: PlanCookerView[]): Record<string, SafetyNote[]> {
+  const out: Record<string, SafetyNote[]> = {};
+  for (const s of result.slots) {
+    const b = batches.find((x) => x.id === s.batchId);
+    const c = cookers.find((x) => x.id === s.cookerId);
+    if (!b || !c) continue;
+    let peak = -Infinity;
+    c.series.t.forEach((t, i) => {
+      if (t >= s.startMs - 600_000 && t <= s.doneMs + 600_000) peak = Math.max(peak, c.series.storeTempC[i] ?? -Infinity);
+    });
+    out[s.batchId] = safetyNotesForSlot({ method: b.method, mediumKind: c.medium.kind, smokePointC: c.medium.smokePointC, predictedStoreMaxC: Number.isFinite(peak) ? peak : null, safeCoreTempC: b.safeCoreTempC });
+  }
+  return out;
+}
+
 export function describePlan(p: Plan) {
+  const batches = p.batches as MenuBatch[];
+  const result = p.result as PlannerResult;
+  const cookers = p.cookers as PlanCookerView[];
   return {
     id: p.id,
     kitchenId: p.kitchen.id,
@@ -172,10 +201,11 @@ export function describePlan(p: Plan) {
     weatherSource: p.weatherSource,
     createdAt: p.createdAt.toISOString(),
     publishedAt: p.publishedAt?.toISOString() ?? null,
-    batches: p.batches as MenuBatch[],
-    result: p.result as PlannerResult,
+    batches,
+    result,
     fuel: p.fuel as PlanFuelView,
-    cookers: p.cookers as PlanCookerView[],
+    cookers,
+    safety: slotSafetyNotes(batches, result, cookers),
   };
 }
 
