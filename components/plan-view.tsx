@@ -174,7 +174,7 @@ export function PlanView({ kitchenId, initialDate, timeZone, canEdit }: { kitche
         <h1 className="text-2xl font-bold">{t('title')}</h1>
         <div className="flex flex-wrap items-end gap-2">
           <label className="flex items-center gap-2">
-            <span className="label mb-0">{tc('localTime')}</span>
+            <span className="label mb-0">{tm('date')}</span>
             <input type="date" className="field w-auto" value={date} onChange={(e) => e.target.value && setDate(e.target.value)} />
           </label>
           {canEdit && (

@@ -183,7 +183,9 @@ export function slotSafetyNotes(batches: MenuBatch[], result: PlannerResult, coo
     c.series.t.forEach((t, i) => {
       if (t >= s.startMs - 600_000 && t <= s.doneMs + 600_000) peak = Math.max(peak, c.series.storeTempC[i] ?? -Infinity);
     });
-    out[s.batchId] = safetyNotesForSlot({ method: b.method, mediumKind: c.medium.kind, smokePointC: c.medium.smokePointC, predictedStoreMaxC: Number.isFinite(peak) ? peak : null, safeCoreTempC: b.safeCoreTempC });
+    // Plans stored before the medium was recorded fall back to the oil cautions (the stricter set).
+    const medium = c.medium ?? { kind: 'oil', smokePointC: null };
+    out[s.batchId] = safetyNotesForSlot({ method: b.method, mediumKind: medium.kind, smokePointC: medium.smokePointC, predictedStoreMaxC: Number.isFinite(peak) ? peak : null, safeCoreTempC: b.safeCoreTempC });
   }
   return out;
 }
