@@ -55,8 +55,13 @@ export default async function setup(project: TestProject) {
   const config = (await import('../../mikro-orm.config')).default;
   const orm = await MikroORM.init({ ...config, clientUrl: databaseUrl });
   await orm.getMigrator().up();
-  const { seedDemo } = await import('../../lib/demo/seed');
-  await seedDemo(orm.em.fork());
+  const { seedDemo, seedDemoPlans } = await import('../../lib/demo/seed');
+  const { KitchenSchema } = await import('../../entities');
+  const demo = await seedDemo(orm.em.fork());
+  // Today's published plan and tomorrow's draft in every demo kitchen, as after npm start.
+  const em = orm.em.fork();
+  const kitchens = await em.find(KitchenSchema, { id: { $in: Object.values(demo.kitchens).map((k) => k.id) } }, { populate: ['organisation'] });
+  await seedDemoPlans(em, Object.fromEntries(Object.entries(demo.kitchens).map(([slug, k]) => [slug, kitchens.find((x) => x.id === k.id)!])), { timeLimitS: 1 });
   // Failed sign-ins count for 15 minutes (lib/auth/throttle.ts): left over from a run a few minutes
   // ago, they would make the fixed addresses of the throttling tests answer 429 too early.
   await orm.em.getConnection().execute('delete from login_attempts');
