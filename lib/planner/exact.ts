@@ -29,7 +29,7 @@ function popcount(x: number): number {
   return n;
 }
 
-export function enumerateExact(m: PModel, search: Search, fixedOnly: State, maxEvaluations: number): ExactOutcome {
+export function enumerateExact(m: PModel, search: Search, fixedOnly: State, maxEvaluations: number, deadlineMs = Infinity): ExactOutcome {
   const st = fixedOnly;
   const members: number[][] = m.cookers.map((c) =>
     m.batches.filter((b) => !b.fixed && search.relax.possible[b.idx]?.[c.idx]?.some((x) => x)).map((b) => b.idx),
@@ -49,7 +49,7 @@ export function enumerateExact(m: PModel, search: Search, fixedOnly: State, maxE
     const masks = Array.from({ length: 1 << k }, (_, i) => i).sort((a, z) => popcount(a) - popcount(z) || a - z);
     for (const mask of masks) {
       if (mask === 0) continue;
-      if (search.evalCount - start > maxEvaluations || search.timeUp()) {
+      if (search.evalCount - start > maxEvaluations || search.timeUp() || performance.now() > deadlineMs) {
         aborted = true;
         break;
       }
@@ -71,7 +71,7 @@ export function enumerateExact(m: PModel, search: Search, fixedOnly: State, maxE
         const order = mem.filter((_, i) => mask & (1 << i));
         const dfs = (ev: Evaluation, j: number): Evaluation | null => {
           if (j === order.length) return ev;
-          if (search.evalCount - start > maxEvaluations || search.timeUp()) {
+          if (search.evalCount - start > maxEvaluations || search.timeUp() || performance.now() > deadlineMs) {
             aborted = true;
             return null;
           }

@@ -354,6 +354,12 @@ export class CookerEvaluator {
     return ev.store[idx] as number;
   }
 
+  /** The store series of `ev`, valid at least up to boundary i (simulating the idle tail if needed). */
+  storeUpTo(ev: Evaluation, i: number): Float64Array {
+    if (Math.min(this.c.n, i) > ev.validTo) this.extend(ev);
+    return ev.store;
+  }
+
   /** Highest store temperature over boundaries [i0, i1] [°C]. */
   storeMax(ev: Evaluation, i0: number, i1: number): number {
     const a = Math.max(0, i0);

@@ -49,7 +49,8 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   const m = buildModel(problem);
   const highsP: Promise<Highs | null> = deps.noSolver ? Promise.resolve(null) : loadHighs().catch(() => null);
   const budgetMs = problem.timeLimitS * 1000;
-  const deadline = tStart + budgetMs * (1 - RESERVE);
+  // Kept for the LP bound, the final re-check and the result: 10 % of the budget, at most 0.3 s + 2 %.
+  const deadline = tStart + budgetMs - Math.min(RESERVE * budgetMs, 300 + 0.02 * budgetMs);
   const stats: EvaluatorStats = { sims: 0, simSteps: 0, cacheHits: 0 };
   const evals = m.cookers.map((c) => new CookerEvaluator(m, c, searchSim, stats));
 
@@ -82,6 +83,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   const search = new Search(m, evals, relax, screens, rng, deadline);
 
   const fixedOnly: State = { evs: st.evs.slice() };
+  search.fixedOnly = fixedOnly.evs;
 
   // 2. Greedy.
   const candidates = m.batches.filter((b) => !b.fixed && relax.impossible[b.idx] === null).map((b) => b.idx);
@@ -100,8 +102,14 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   const maxIt = deps.maxIterations ?? Infinity;
   const nC = m.cookers.length;
   const staleLimit = Math.max(16, 4 * nC);
-  const masterEvery = Math.max(8, nC);
+  // The master runs every `masterEvery` iterations; the interval doubles while it finds nothing.
+  let masterEvery = Math.max(8, nC);
+  let nextMaster = masterEvery;
   let stale = 0;
+  let level = 0;
+  let kicks = 0;
+  const maxKicks = deps.maxKicks ?? 50;
+  let best: State = { evs: st.evs.slice() };
   let lastMasterPool = 0;
   let masterRuns = 0;
   let lastMasterStatus = -1;
@@ -122,7 +130,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     if (!res) return false;
     const cur = stateValue(m, st);
     if (res.objective <= cur + 1e-7) return false;
-    const next: Evaluation[] = evals.map((e) => e.evaluate(e.fixedLoads()));
+    const next: Evaluation[] = fixedOnly.evs.slice();
     for (const col of res.chosen) next[col.c] = (evals[col.c] as CookerEvaluator).evaluate(col.loads);
     const trial: State = { evs: next.map((ev, c) => (ev.ok ? ev : (st.evs[c] as Evaluation))) };
     // Columns are disjoint, but a fallback to the old sequence could duplicate a batch: check.
@@ -138,7 +146,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   // Small instances: decide every subset of every cooker (exact.ts); the master over those columns is exact.
   let exactProof = false;
   if (!atBoundNow() && highs && (deps.maxExactEvaluations ?? 4000) > 0 && performance.now() < deadline) {
-    const ex = enumerateExact(m, search, fixedOnly, deps.maxExactEvaluations ?? 4000);
+    const ex = enumerateExact(m, search, fixedOnly, deps.maxExactEvaluations ?? 4000, performance.now() + 0.35 * (deadline - performance.now()));
     say(`exact enumeration: ${ex.complete ? 'complete' : 'stopped'}, ${ex.columns} columns, ${ex.evaluations} simulations`);
     if (ex.complete) {
       lastMasterPool = -1;
@@ -182,23 +190,56 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
         break;
       }
       if (stale >= staleLimit) {
+        stale = 0;
         if (tryMaster(false) || search.swapPass(st, 20 * nC) || search.insertionPass(st)) {
-          stale = 0;
+          level = 0;
           continue;
         }
-        stopReason = 'converged';
-        break;
+        // Nothing improves: destroy more cookers at once, up to three escalations; then kick the
+        // best plan (iterated local search), at most `maxKicks` times.
+        level++;
+        if (level > 3 || level > nC - 2) {
+          if (stateValue(m, st) > stateValue(m, best) + 1e-9) best = { evs: st.evs.slice() };
+          if (kicks >= maxKicks) {
+            stopReason = 'converged';
+            break;
+          }
+          kicks++;
+          st.evs = best.evs.slice();
+          search.perturb(st, 0.25);
+          level = 0;
+          say(`search: kick ${kicks} from the best plan (${stateServings(m, best)} servings) → ${stateServings(m, st)} servings`);
+          continue;
+        }
+        say(`search: no improvement, destroying up to ${2 + level} cookers`);
       }
       if (pos >= order.length) {
         order = perm();
         pos = 0;
       }
       const c1 = order[pos++] as number;
-      const pick = nC > 1 && rng() < 0.6 ? [c1, pickPartner(m, relax, st, c1, rng)] : [c1];
+      const pick = [c1];
+      const want = nC > 1 && rng() < 0.6 ? 2 + level : 1 + level;
+      for (let tries = 0; pick.length < Math.min(want, nC) && tries < 4 * want; tries++) {
+        const c2 = pickPartner(m, relax, st, pick[pick.length - 1] as number, rng);
+        if (!pick.includes(c2)) pick.push(c2);
+      }
       const improved = search.lns(st, pick);
-      stale = improved ? 0 : stale + 1;
-      if (search.iterations % masterEvery === 0 && tryMaster(false)) stale = 0;
+      if (improved) {
+        stale = 0;
+        level = 0;
+        if (stateValue(m, st) > stateValue(m, best) + 1e-9) best = { evs: st.evs.slice() };
+      } else stale++;
+      if (search.iterations >= nextMaster) {
+        if (tryMaster(false)) {
+          stale = 0;
+          level = 0;
+          masterEvery = Math.max(8, nC);
+        } else masterEvery = Math.min(8 * Math.max(8, nC), 2 * masterEvery);
+        nextMaster = search.iterations + masterEvery;
+      }
     }
+    if (stateValue(m, best) > stateValue(m, st) + 1e-9) st.evs = best.evs.slice();
     if (!search.timeUp()) search.shiftPass(st, 30 * nC);
     tryMaster(true);
   }

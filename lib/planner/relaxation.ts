@@ -95,7 +95,7 @@ export function buildRelaxation(m: PModel, evals: CookerEvaluator[], screens: Po
     const hit = dminCache.get(key);
     if (hit !== undefined) return hit;
     const hot = spec.store.maxSafeTempC;
-    const res = (screens[c.idx] as PotScreen).run(b, p, c.t0, c.t0 + windowMs, () => hot, 'upper', c.tAirMaxC);
+    const res = (screens[c.idx] as PotScreen).run(b, p, c.t0, c.t0 + windowMs, hot, 'upper', c.tAirMaxC);
     const d = res.ok && res.doneMs !== null ? Math.max(b.holdMs, res.doneMs - c.t0 - STEP_MS) : Infinity;
     dminCache.set(key, d);
     return d;
@@ -166,7 +166,7 @@ export function buildRelaxation(m: PModel, evals: CookerEvaluator[], screens: Po
               if (s + d <= maxEnd) {
                 const ev = (evals[c.idx] as CookerEvaluator).noLoad();
                 const e = evals[c.idx] as CookerEvaluator;
-                if ((screens[c.idx] as PotScreen).run(b, pot.idx, s, maxEnd, (i) => e.storeAt(ev, i), 'upper').ok) {
+                if ((screens[c.idx] as PotScreen).run(b, pot.idx, s, maxEnd, e.storeUpTo(ev, c.n), 'upper').ok) {
                   ok = true;
                   break;
                 }

@@ -35,6 +35,8 @@ export interface ScreenResult {
 export class PotScreen {
   readonly medium: StorageMedium;
   private readonly ua: ((ts: number, tp: number) => number)[];
+  /** Constant store-to-pot conductance per pot [W/K], −1 for natural convection. */
+  private readonly uaConst: number[];
   readonly tBoil: number;
   private readonly kLoss: number;
   constructor(
@@ -51,6 +53,7 @@ export class PotScreen {
       }
       return createNaturalConvectionCoupling(this.medium, p.coupling.contactAreaM2, p.volumeL);
     });
+    this.uaConst = spec.pots.map((p) => (p.coupling.kind === 'constant' ? p.coupling.uaWPerK : -1));
     const col = spec.collector;
     this.kLoss = (col.model === 'lumped' ? col.uLossWPerK : col.apertureM2 * col.a1) + spec.store.uaLossWPerK;
   }
@@ -61,7 +64,8 @@ export class PotScreen {
   }
 
   /**
-   * Steps the pot from `s` to `maxEnd` against store temperatures `storeAt(i)` (boundary index i).
+   * Steps the pot from `s` to `maxEnd` against store temperatures `store[i]` (boundary index i; or a
+   * constant), less the Δ of `minus` (another batch's forecast draw) when given.
    * Modes: 'upper' (necessary test), 'estimate' (forecast with the batch's own draw lowering the
    * store), 'existing' (a batch already in the simulated trajectory: its draw is in `storeAt`, lid
    * losses on). With `trace`, the store lowering Δ of 'estimate' is recorded per boundary.
@@ -72,10 +76,43 @@ export class PotScreen {
     p: number,
     s: number,
     maxEnd: number,
-    storeAt: (i: number) => number,
+    store: Float64Array | number,
     mode: 'upper' | 'estimate' | 'existing',
     tAirOverrideC?: number,
     trace?: DeltaTrace,
+    minus?: DeltaTrace,
+  ): ScreenResult {
+    return this.compute(b, p, s, maxEnd, store, mode, tAirOverrideC, trace, minus);
+  }
+
+  private readonly suffix = new WeakMap<Float64Array, Float64Array>();
+
+  /** max(store[i..n]) for each i, cached per trajectory (filled in place, so computed once it is complete). */
+  private suffixMax(store: Float64Array): Float64Array {
+    let sm = this.suffix.get(store);
+    if (!sm) {
+      sm = new Float64Array(store.length);
+      let mx = -Infinity;
+      for (let i = store.length - 1; i >= 0; i--) {
+        const v = store[i] as number;
+        if (v > mx) mx = v;
+        sm[i] = mx;
+      }
+      this.suffix.set(store, sm);
+    }
+    return sm;
+  }
+
+  private compute(
+    b: PBatch,
+    p: number,
+    s: number,
+    maxEnd: number,
+    store: Float64Array | number,
+    mode: 'upper' | 'estimate' | 'existing',
+    tAirOverrideC?: number,
+    trace?: DeltaTrace,
+    minus?: DeltaTrace,
   ): ScreenResult {
     const c = this.c;
     const spec = c.raw.spec;
@@ -88,12 +125,14 @@ export class PotScreen {
     let water = r.waterKg;
     let cPot = cDry + water * WATER_CP_J_PER_KG_K;
     const lid = upper ? 0 : pot.lidAreaM2 * pot.lidUWPerM2K * (r.lidOn ? 1 : LID_OFF_LOSS_FACTOR);
+    const uaConst = this.uaConst[p] as number;
     const ua = this.ua[p] as (ts: number, tp: number) => number;
     const minT = upper ? r.minTempC - 0.3 : r.minTempC;
     const holdMs = upper ? Math.max(0, b.holdMs - 2 * STEP_MS) : b.holdMs;
     const i0 = Math.ceil((s - c.t0) / STEP_MS - 1e-9);
     const iEnd = Math.min(c.n, Math.ceil((maxEnd - c.t0) / STEP_MS - 1e-9));
-    const w0 = c.raw.weather[Math.min(i0, c.n - 1)];
+    const weather = c.raw.weather;
+    const w0 = weather[Math.min(i0, c.n - 1)];
     let tp = b.fixed?.initialTempC ?? tAirOverrideC ?? w0?.tAirC ?? 20;
     if (water > 0 && tp > this.tBoil) tp = this.tBoil;
     let delta = 0;
@@ -102,6 +141,17 @@ export class PotScreen {
     const dt = STEP_MS / 1000;
     let cS = 1;
     let decay = 1;
+    // exp(−g·dt/C) cached while g and C do not change (constant coupling).
+    let lastG = -1;
+    let lastC = -1;
+    let ex = 1;
+    const constStore = typeof store === 'number';
+    const sufMax = constStore ? null : this.suffixMax(store);
+    let md = 0;
+    let mk = 0;
+    if (minus) {
+      mk = i0 - minus.i0;
+    }
     if (trace) {
       trace.i0 = i0;
       trace.d.length = 0;
@@ -111,29 +161,45 @@ export class PotScreen {
       const tMs = c.t0 + i * STEP_MS;
       if (tp >= minT) {
         if (reached === null) reached = tMs;
-        if (Number.isNaN(hold)) hold = tMs;
+        if (hold !== hold) hold = tMs;
       } else hold = Number.NaN;
-      if (!Number.isNaN(hold) && tMs - hold >= holdMs) {
+      if (hold === hold && tMs - hold >= holdMs) {
         if (trace) trace.decay = decay;
         return { ok: true, reachedMs: reached, doneMs: hold + b.holdMs };
       }
-      if (i >= iEnd || i >= c.n) {
+      // Early exits (exact for the screen): no time left to complete the hold, or the pot is below
+      // the minimum and no store temperature ahead reaches it.
+      let early = false;
+      if (hold !== hold && (iEnd - i) * STEP_MS < holdMs) early = true;
+      else if (tp < minT && sufMax !== null && (sufMax[i] as number) < minT) early = true;
+      if (early || i >= iEnd || i >= c.n) {
         if (trace) trace.decay = decay;
         return { ok: false, reachedMs: reached, doneMs: null };
       }
-      const ts = storeAt(i) - delta;
-      const tAir = tAirOverrideC ?? (c.raw.weather[i] as { tAirC: number }).tAirC;
-      const u = Math.max(0, ua(ts, tp));
+      if (minus) {
+        const k = mk + (i - i0);
+        md = k < 0 || minus.d.length === 0 ? 0 : k < minus.d.length ? (minus.d[k] as number) : (minus.d[minus.d.length - 1] as number) * Math.pow(minus.decay, k - minus.d.length + 1);
+      }
+      const ts = (constStore ? store : (store[i] as number)) - delta - md;
+      const tAir = tAirOverrideC ?? (weather[i] as { tAirC: number }).tAirC;
+      let u = uaConst >= 0 ? uaConst : ua(ts, tp);
+      if (u < 0) u = 0;
       const g = u + lid;
+      if (g !== lastG || cPot !== lastC) {
+        lastG = g;
+        lastC = cPot;
+        ex = Math.exp((-g * dt) / cPot);
+      }
       const tInf = g > 0 ? (u * ts + lid * tAir) / g : tp;
-      const tpNew = tInf + (tp - tInf) * Math.exp((-g * dt) / cPot);
+      const tpNew = tInf + (tp - tInf) * ex;
       if (selfDraw) {
         if ((i - i0) % 20 === 0) {
           cS = Math.max(1, this.enthalpyJ(ts + 0.5) - this.enthalpyJ(ts - 0.5));
           decay = Math.exp((-this.kLoss * dt) / cS);
         }
         const q = u * (ts - 0.5 * (tp + tpNew));
-        delta = Math.max(0, delta * decay + (q * dt) / cS);
+        delta = delta * decay + (q * dt) / cS;
+        if (delta < 0) delta = 0;
         if (trace) trace.d.push(delta);
       }
       if (water > 0 && tpNew > this.tBoil) {

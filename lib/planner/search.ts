@@ -26,7 +26,7 @@ import {
   type PModel,
 } from './model';
 import type { Relaxation } from './relaxation';
-import { deltaAt, newTrace, type DeltaTrace, type PotScreen } from './screen';
+import { newTrace, type DeltaTrace, type PotScreen } from './screen';
 import { STEP_MS } from './validate';
 
 /** Deterministic PRNG (mulberry32, Tommy Ettinger 2017): 32-bit state, uniform [0, 1). */
@@ -89,6 +89,8 @@ export class Search {
   readonly pool = new Map<string, Column>();
   evalCount = 0;
   iterations = 0;
+  /** Per cooker, the sequence of its fixed batches that work (set by the planner). */
+  fixedOnly: Evaluation[] = [];
   /** Candidates forecast to fail that tryInsert still simulates (the forecast is an approximation). */
   maxFailTries = 2;
   constructor(
@@ -130,7 +132,7 @@ export class Search {
    * store (as `ev` predicts it, before this batch draws anything) at least the dish minimum
    * somewhere before the hold must start.
    */
-  *starts(ev: Evaluation, b: PBatch, c: number, p: number, descending = false, from?: number): Generator<number, undefined> {
+  *starts(ev: Evaluation, b: PBatch, c: number, p: number, descending = false, from?: number, withScreen = true): Generator<number, undefined, number | undefined> {
     const m = this.m;
     const ce = this.evals[c] as CookerEvaluator;
     const pc = ce.c;
@@ -156,10 +158,10 @@ export class Search {
       const i0 = Math.round((s - pc.t0) / STEP_MS);
       const i1 = Math.floor((maxEnd - b.holdMs - pc.t0) / STEP_MS);
       if (ce.storeMax(ev, i0, i1) < b.raw.minTempC) return false;
-      return screen.run(b, p, s, maxEnd, storeAt, 'upper').ok;
+      return !withScreen || screen.run(b, p, s, maxEnd, store, 'upper').ok;
     };
     const screen = this.screens[c] as PotScreen;
-    const storeAt = (i: number) => ce.storeAt(ev, i);
+    const store = ce.storeUpTo(ev, pc.n);
     if (!descending) {
       let s = from !== undefined ? Math.max(lo, from) : lo;
       while (s <= hi) {
@@ -169,8 +171,9 @@ export class Search {
           s = ceilToGrid(nx, m.slotMs);
           continue;
         }
-        if (check(s)) yield s;
-        s += m.slotMs;
+        let skipTo: number | undefined;
+        if (check(s)) skipTo = yield s;
+        s = skipTo !== undefined && skipTo > s + m.slotMs ? Math.ceil(skipTo / m.slotMs) * m.slotMs : s + m.slotMs;
       }
     } else {
       let s = Math.floor(hi / m.slotMs) * m.slotMs;
@@ -186,11 +189,12 @@ export class Search {
    * simulated best first until one works (earliest completion; ties: earlier start, smaller pot,
    * then the order of `cookers`). Returns the new evaluation, or null.
    */
-  tryInsert(st: State, b: PBatch, cookers: readonly number[], maxEvals = 0): { c: number; ev: Evaluation } | null {
+  tryInsert(st: State, b: PBatch, cookers: readonly number[], maxEvals = 0, pick?: () => number): { c: number; ev: Evaluation } | null {
     interface Ranked {
       c: number;
       p: number;
       s: number;
+      maxEnd: number;
       done: number;
       prio: number;
     }
@@ -202,37 +206,74 @@ export class Search {
       const ev = st.evs[c] as Evaluation;
       const ce = this.evals[c] as CookerEvaluator;
       const screen = this.screens[c] as PotScreen;
-      const storeAt = (i: number) => ce.storeAt(ev, i);
+      const store = ce.storeUpTo(ev, ce.c.n);
       const pots = this.m.cookers[c]?.pots ?? [];
       for (const pot of pots) {
         if (!this.relax.possible[b.idx]?.[c]?.[pot.idx]) continue;
         const dmin = this.relax.dminMs[b.idx]?.[c]?.[pot.idx] ?? Infinity;
         const prio = pot.volumeL * 1000 + rank++;
-        for (const s of this.starts(ev, b, c, pot.idx)) {
+        let k = 0;
+        // Cheap tests only here; the forecast below is stricter than the 'upper' screen, and a start
+        // it rejects gets the 'upper' screen before it is simulated.
+        const gen = this.starts(ev, b, c, pot.idx, false, undefined, false);
+        for (let it = gen.next(); !it.done; ) {
+          const s = it.value;
           // Later starts cannot finish before the best forecast so far.
           if (s + dmin > bestDone + 2 * this.m.slotMs) break;
+          k++;
           const maxEnd = this.maxEndFor(ev, b, c, pot.idx, s);
-          const f = screen.run(b, pot.idx, s, maxEnd, storeAt, 'estimate', undefined, trace);
-          let done = f.ok && f.doneMs !== null ? f.doneMs : Infinity;
-          // Would a batch already on this cooker, still to come or still cooking, fail?
-          if (done < Infinity && !this.othersSurvive(ev, c, s, trace)) done = Infinity;
+          const f = screen.run(b, pot.idx, s, maxEnd, store, 'estimate');
+          const done = f.ok && f.doneMs !== null ? f.doneMs : Infinity;
           if (done < bestDone) bestDone = done;
-          ranked.push({ c, p: pot.idx, s, done, prio });
+          ranked.push({ c, p: pot.idx, s, maxEnd, done, prio });
+          // Forecast the first starts one by one, then thin out (stride 2, then 4 slots).
+          it = gen.next(s + (k < 4 ? 1 : k < 8 ? 2 : 4) * this.m.slotMs);
         }
       }
     }
     ranked.sort((x, z) => x.done - z.done || x.s - z.s || x.prio - z.prio);
+    // Randomised repair: sometimes take the second or third best forecast first.
+    if (pick && ranked.length > 1 && ranked[1]?.done !== Infinity) {
+      const u = pick();
+      const j = u < 0.15 ? 1 : u < 0.22 && ranked.length > 2 && ranked[2]?.done !== Infinity ? 2 : 0;
+      if (j > 0) ranked.unshift(...ranked.splice(j, 1));
+    }
     const limit = maxEvals > 0 ? maxEvals : 12;
     let used = 0;
     let failTries = 0;
-    for (const cand of ranked) {
-      if (used >= limit) break;
-      // The forecast is rarely wrong about a failure: try only a few of those.
-      if (cand.done === Infinity && failTries++ >= this.maxFailTries) break;
+    const deferred: Ranked[] = [];
+    const simulateCand = (cand: Ranked): { c: number; ev: Evaluation } | null => {
       const base = st.evs[cand.c] as Evaluation;
       const ev = this.evaluate(cand.c, insertLoad(base.loads, { b: b.idx, p: cand.p, s: cand.s }), base);
       used++;
-      if (ev.ok) return { c: cand.c, ev };
+      return ev.ok ? { c: cand.c, ev } : null;
+    };
+    for (const cand of ranked) {
+      if (used >= limit) return null;
+      if (cand.done === Infinity) {
+        deferred.push(cand);
+        continue;
+      }
+      // Would a batch already on this cooker, still to come or still cooking, fail?
+      const ev = st.evs[cand.c] as Evaluation;
+      const ce = this.evals[cand.c] as CookerEvaluator;
+      (this.screens[cand.c] as PotScreen).run(b, cand.p, cand.s, cand.maxEnd, ce.storeUpTo(ev, ce.c.n), 'estimate', undefined, trace);
+      if (!this.othersSurvive(ev, cand.c, cand.s, trace)) {
+        deferred.push(cand);
+        continue;
+      }
+      const r = simulateCand(cand);
+      if (r) return r;
+    }
+    // The forecast is rarely wrong about a failure: try only a few of those.
+    for (const cand of deferred) {
+      if (used >= limit || failTries >= this.maxFailTries) break;
+      const ev = st.evs[cand.c] as Evaluation;
+      const ce = this.evals[cand.c] as CookerEvaluator;
+      if (!(this.screens[cand.c] as PotScreen).run(b, cand.p, cand.s, cand.maxEnd, ce.storeUpTo(ev, ce.c.n), 'upper').ok) continue;
+      failTries++;
+      const r = simulateCand(cand);
+      if (r) return r;
     }
     return null;
   }
@@ -244,12 +285,12 @@ export class Search {
   othersSurvive(ev: Evaluation, c: number, s: number, trace: DeltaTrace): boolean {
     const ce = this.evals[c] as CookerEvaluator;
     const screen = this.screens[c] as PotScreen;
-    const lowered = (i: number) => ce.storeAt(ev, i) - deltaAt(trace, i);
+    const store = ce.storeUpTo(ev, ce.c.n);
     for (let j = 0; j < ev.loads.length; j++) {
       const o = ev.out[j] as LoadOut;
       if (o.endMs <= s) continue;
       const l = ev.loads[j] as Load;
-      const f = screen.run(this.m.batches[l.b] as PBatch, l.p, l.s, ev.maxEnd[j] as number, lowered, 'existing');
+      const f = screen.run(this.m.batches[l.b] as PBatch, l.p, l.s, ev.maxEnd[j] as number, store, 'existing', undefined, undefined, trace);
       if (!f.ok) return false;
     }
     return true;
@@ -310,6 +351,36 @@ export class Search {
       }
     }
     return improved;
+  }
+
+  /**
+   * Kick for an iterated local search: take a random share of the placed batches out and re-insert
+   * the unplaced batches in a random order. The result may be worse; the caller keeps the best.
+   */
+  perturb(st: State, share: number): void {
+    const m = this.m;
+    for (const pc of m.cookers) {
+      const ev = st.evs[pc.idx] as Evaluation;
+      const out = ev.loads.filter((l) => !(m.batches[l.b] as PBatch).fixed && this.rng() < share);
+      if (out.length === 0) continue;
+      const keep = ev.loads.filter((l) => !out.includes(l));
+      const next = this.evaluate(pc.idx, keep, ev);
+      if (next.ok) st.evs[pc.idx] = next;
+    }
+    const order = this.unplaced(st);
+    for (let i = order.length - 1; i > 0; i--) {
+      const j = Math.floor(this.rng() * (i + 1));
+      [order[i], order[j]] = [order[j] as number, order[i] as number];
+    }
+    const all = m.cookers.map((c) => c.idx);
+    for (const bi of order) {
+      if (this.timeUp()) return;
+      const r = this.tryInsert(st, m.batches[bi] as PBatch, all, 0, this.rng);
+      if (r) {
+        st.evs[r.c] = r.ev;
+        this.addColumn(r.c, r.ev);
+      }
+    }
   }
 
   /** Take a less valuable batch out of a cooker to let a more valuable unplaced one in. */
@@ -399,7 +470,7 @@ export class Search {
     for (const c of cookers) {
       const ev = st.evs[c] as Evaluation;
       for (const l of ev.loads) if (!(m.batches[l.b] as PBatch).fixed) pool.add(l.b);
-      trial.evs[c] = (this.evals[c] as CookerEvaluator).evaluate((this.evals[c] as CookerEvaluator).fixedLoads());
+      trial.evs[c] = this.fixedOnly[c] ?? (this.evals[c] as CookerEvaluator).evaluate((this.evals[c] as CookerEvaluator).fixedLoads());
     }
     for (const bi of this.unplaced(st)) if (cookers.some((c) => this.relax.possible[bi]?.[c]?.some((x) => x))) pool.add(bi);
     const items = [...pool].sort((a, z) => a - z);
@@ -418,10 +489,18 @@ export class Search {
     });
     items.sort((a, z) => (key.get(a) as number) - (key.get(z) as number) || a - z);
     const order = cookers.length > 1 && this.rng() < 0.5 ? [...cookers].reverse() : cookers;
-    for (const bi of items) {
-      if (this.timeUp()) return false;
-      const r = this.tryInsert(trial, bs[bi] as PBatch, order);
-      if (r) trial.evs[r.c] = r.ev;
+    const randomPick = this.rng() < 0.5 ? this.rng : undefined;
+    // Repairs trust the forecast: a start it expects to fail is not simulated.
+    const keep = this.maxFailTries;
+    this.maxFailTries = 0;
+    try {
+      for (const bi of items) {
+        if (this.timeUp()) return false;
+        const r = this.tryInsert(trial, bs[bi] as PBatch, order, 0, randomPick);
+        if (r) trial.evs[r.c] = r.ev;
+      }
+    } finally {
+      this.maxFailTries = keep;
     }
     const after = cookers.reduce((s, c) => s + (trial.evs[c] as Evaluation).value, 0);
     for (const c of cookers) this.addColumn(c, trial.evs[c] as Evaluation);

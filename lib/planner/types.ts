@@ -154,6 +154,8 @@ export interface PlannerDeps {
   searchSimulate?: SimulateFn;
   /** Stop after this many search iterations (makes results independent of machine speed). */
   maxIterations?: number;
+  /** Restarts of the local search from a perturbed best plan once it stalls (default 50). */
+  maxKicks?: number;
   /** Budget of simulations for the complete enumeration of small instances (default 4000; 0 disables it). */
   maxExactEvaluations?: number;
   /** Skip the HiGHS master and bound LP (greedy and local search only). */
