@@ -7,7 +7,8 @@ ensure_node_modules() {
   # Install from the lock when node_modules is missing or older than the lock file.
   if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
     echo "[setup] installing npm packages from package-lock.json…"
-    npm ci --no-audit --no-fund --loglevel=error
+    # --include=dev: the build and the tests need devDependencies even when NODE_ENV=production.
+    npm ci --include=dev --no-audit --no-fund --loglevel=error
   fi
 }
 
