@@ -1,7 +1,7 @@
 import coreWebVitals from 'eslint-config-next/core-web-vitals';
 import typescript from 'eslint-config-next/typescript';
 
-export default [
+const config = [
   { ignores: ['.next/**', 'node_modules/**', '.data/**', '.var/**', 'next-env.d.ts', 'public/sw.js'] },
   ...coreWebVitals,
   ...typescript,
@@ -11,3 +11,5 @@ export default [
     },
   },
 ];
+
+export default config;
