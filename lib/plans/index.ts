@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import type { EntityManager } from '@mikro-orm/postgresql';
+import { LockMode, type EntityManager } from '@mikro-orm/postgresql';
 import { PlanSchema, type Cooker, type Kitchen, type Plan } from '@/entities';
 import type { KitchenAccess } from '@/lib/auth/guard';
 import { recordAudit } from '@/lib/audit';
@@ -266,7 +266,9 @@ export async function publishPlan(access: KitchenAccess, planId: string) {
 /** Publishing without a request (also used by the demo loader). */
 export async function publishDraft(em: EntityManager, kitchen: Kitchen, actorId: string | null, planId: string): Promise<Plan> {
   return em.transactional(async (tx) => {
-    const plan = await tx.findOne(PlanSchema, { id: planId, kitchen: kitchen.id }, { populate: ['kitchen'], lockMode: 4 });
+    // FOR UPDATE (waits): a second publish of the same draft sees it published and gets 409. Not
+    // lockMode 4 (PESSIMISTIC_PARTIAL_WRITE = SKIP LOCKED), which skipped the locked row and answered 404.
+    const plan = await tx.findOne(PlanSchema, { id: planId, kitchen: kitchen.id }, { populate: ['kitchen'], lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!plan) throw notFound('Plan');
     if (plan.status !== 'draft') throw conflict(`Plan version ${plan.version} is already ${plan.status}.`);
     await tx.nativeUpdate(PlanSchema, { kitchen: kitchen.id, date: plan.date, status: 'published' }, { status: 'superseded' });
