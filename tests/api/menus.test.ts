@@ -91,11 +91,20 @@ describe('day menu', () => {
     expect((await c.leadA!.get(menu(DAY))).json.lines).toHaveLength(3);
   });
 
-  it('a malformed date in the path is 422 naming the date, not 500', async () => {
-    const r = await c.leadA!.get(menu('2026-13-45'));
-    expect(r.status).toBe(422);
-    const r2 = await c.leadA!.get(menu('tomorrow'));
-    expect(r2.status).toBe(422);
+  it.each([['2026-13-45'], ['tomorrow'], ['2026-02-30'], ['2026-02-29']])('a path date %j that is malformed or does not exist is 422 naming date, on every menu route', async (date) => {
+    for (const r of [
+      await c.leadA!.get(menu(date)),
+      await put(c.leadA!, date, lines()),
+      await c.leadA!.get(`${menu(date)}/batches`),
+      await c.leadA!.post(`${menu(date)}/copy`, { fromDate: DAY }),
+    ]) {
+      expect(r.status).toBe(422);
+      expect(Object.keys(r.json.error.fields)).toContain('date');
+    }
+    // Regression: "2026-02-30" passed Date.parse (any day up to 31) and was stored as a menu date.
+    const fromBad = await c.leadA!.post(`${menu(NEXT)}/copy`, { fromDate: date });
+    expect(fromBad.status).toBe(422);
+    expect(Object.keys(fromBad.json.error.fields)).toContain('fromDate');
   });
 
   it('copies a day onto another day (replacing it)', async () => {
