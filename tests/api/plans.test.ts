@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client } from '../helpers/http';
 import { addDemoCookers, addDishLibrary, createWorld, closeTestOrm, PASSWORD, testOrm, type World } from '../helpers/fixtures';
-import { AuditEventSchema, UserSchema } from '../../entities';
+import { AuditEventSchema, PlanSchema, UserSchema } from '../../entities';
 import type { DishInput } from '../../lib/validations/dishes';
 
 let w: World;
@@ -126,6 +126,8 @@ const slotKey = (s: Slot) => ({ batchId: s.batchId, cookerId: s.cookerId, potId:
 describe('plans', () => {
   let draft: PlanJson;
   let v1: PlanJson;
+  /** A move found feasible on the solved draft (the solve is deterministic, so it stays feasible on a re-solve). */
+  let feasible: { batchId: string; cookerId: string; potId: string; startMs: number } | null = null;
 
   it('a cook cannot solve (403); a day without a menu is 422 naming date; a kitchen without cookers is 422', async () => {
     expect((await solve(c.cookA!)).status).toBe(403);
@@ -140,9 +142,14 @@ describe('plans', () => {
     expect(noCookers.status).toBe(422);
     expect(Object.keys(noCookers.json.error.fields)).toContain('cookers');
     // A malformed date or time limit is 422 naming it.
-    const badDate = await c.leadA!.post(plans(), { date: '2026-02-30x', timeLimitS: 1 });
-    expect(badDate.status).toBe(422);
-    expect(Object.keys(badDate.json.error.fields)).toContain('date');
+    for (const date of ['2026-02-30x', '2026-02-30']) {
+      const badDate = await c.leadA!.post(plans(), { date, timeLimitS: 1 });
+      expect(badDate.status).toBe(422);
+      expect(Object.keys(badDate.json.error.fields)).toContain('date');
+    }
+    const badQuery = await c.leadA!.get(`${plans()}?date=2026-04-31`);
+    expect(badQuery.status).toBe(422);
+    expect(Object.keys(badQuery.json.error.fields)).toContain('date');
     const badLimit = await c.leadA!.post(plans(), { date: DAY, timeLimitS: 600 });
     expect(badLimit.status).toBe(422);
     expect(Object.keys(badLimit.json.error.fields)).toContain('timeLimitS');
@@ -295,6 +302,7 @@ describe('plans', () => {
     expect(after.cookerId).toBe(slot.cookerId);
     checkPlanInvariants(moved!);
     expect(moved!.result.log.at(-1)).toMatch(/manual move: Rice/);
+    feasible = { batchId: rice.id, cookerId: slot.cookerId, potId: chosen.potId, startMs: chosen.startMs };
     // Stored: a fresh read shows the move.
     const again = await c.leadA!.get(`${plans()}/${draft.id}`);
     expect((again.json.result.slots as Slot[]).find((s) => s.batchId === rice.id)).toMatchObject({ startMs: chosen.startMs, potId: chosen.potId });
@@ -345,6 +353,66 @@ describe('plans', () => {
     expect(latest.json.draft).toBeNull();
     // A superseded plan cannot be published again or moved.
     expect((await c.leadA!.post(`${plans()}/${v1.id}/publish`)).status).toBe(409);
+  });
+
+  it('two solves of the same day at the same moment leave one draft', async () => {
+    const both = await Promise.all([solve(c.leadA!), solve(c.leadA!)]);
+    expect(both.map((r) => r.status)).toEqual([201, 201]);
+    const em = (await testOrm()).em.fork();
+    const drafts = await em.find(PlanSchema, { kitchen: w.kitchenA.id, date: DAY, status: 'draft' });
+    expect(drafts.map((p) => p.id)).toHaveLength(1);
+    expect(both.map((r) => r.json.id)).toContain(drafts[0]!.id);
+    // The published versions are untouched.
+    const published = await em.find(PlanSchema, { kitchen: w.kitchenA.id, date: DAY, status: { $ne: 'draft' } }, { orderBy: { version: 'asc' } });
+    expect(published.map((p) => [p.version, p.status])).toEqual([
+      [1, 'superseded'],
+      [2, 'published'],
+    ]);
+  });
+
+  it('regression: a move racing a publish never changes the published plan', async () => {
+    expect(feasible).not.toBeNull();
+    // The move re-simulates the cooker for ~100 ms; the publish is sent while it runs. Before the
+    // fix, a move that had passed its "is it a draft?" check wrote its slots after the publish.
+    for (const delayMs of [0, 3, 10, 15]) {
+      const fresh = await solve(c.leadA!);
+      expect(fresh.status).toBe(201);
+      const id = fresh.json.id;
+      const movePromise = c.leadA!.patch(`${plans()}/${id}/slots/${feasible!.batchId}`, { cookerId: feasible!.cookerId, potId: feasible!.potId, start: new Date(feasible!.startMs).toISOString() });
+      await new Promise((r) => setTimeout(r, delayMs));
+      const pub = await c.leadA!.post(`${plans()}/${id}/publish`);
+      const mv = await movePromise;
+      expect(pub.status).toBe(200);
+      expect([200, 409]).toContain(mv.status);
+      if (mv.status === 200) expect(mv.json.result).toEqual(pub.json.result); // the move was in before the publish
+      else expect(mv.json.error.message).toMatch(/published/);
+      // Whatever the order, the stored plan is exactly what the publish answered.
+      const stored = await c.leadA!.get(`${plans()}/${id}`);
+      expect(stored.json.status).toBe('published');
+      for (const k of ['result', 'fuel', 'cookers', 'batches'] as const) expect(stored.json[k]).toEqual(pub.json[k]);
+    }
+  });
+
+  it('two moves of the same draft at once: the stored plan is the one the last accepted move answered', async () => {
+    const fresh = await solve(c.leadA!);
+    const id = fresh.json.id;
+    const slot = (fresh.json.result.slots as Slot[]).find((s) => s.batchId === feasible!.batchId)!;
+    const url = `${plans()}/${id}/slots/${feasible!.batchId}`;
+    const [a, b] = await Promise.all([
+      c.leadA!.patch(url, { cookerId: feasible!.cookerId, potId: feasible!.potId, start: new Date(feasible!.startMs).toISOString() }),
+      c.leadA!.patch(url, { cookerId: slot.cookerId, potId: slot.potId, start: new Date(slot.startMs).toISOString() }), // back where it was
+    ]);
+    const ok = [a, b].filter((r) => r.status === 200);
+    for (const r of [a, b]) expect([200, 409]).toContain(r.status);
+    expect(ok.length).toBeGreaterThanOrEqual(1);
+    const stored = await c.leadA!.get(`${plans()}/${id}`);
+    // No lost update: the stored slots are those of one accepted answer, never a mix or a stale one.
+    const canon = (slots: Slot[]) => JSON.stringify(slots.map(slotKey)); // jsonb reorders keys; compare in one order
+    expect(ok.map((r) => canon(r.json.result.slots))).toContain(canon(stored.json.result.slots));
+    // And no move is lost: every accepted move is in the stored plan's log (the second one, if also
+    // accepted, was checked on top of the first).
+    expect(stored.json.result.log.filter((l: string) => l.includes('manual move')).length).toBe(ok.length);
+    checkPlanInvariants(stored.json);
   });
 
   it('audit events: plan.solve, plan.move-slot and plan.publish by the lead', async () => {
