@@ -62,16 +62,23 @@ export async function getDish(em: EntityManager, organisationId: string, dishId:
   return d;
 }
 
-async function assertNameFree(em: EntityManager, organisationId: string, name: string, exceptId?: string) {
+/**
+ * 409 when a live dish of the organisation has the name. An archived dish holding it is renamed
+ * (flushed at once, before the caller's insert or rename reaches the unique index), so the name is
+ * free and the archived dish keeps the menu lines of past days that point at it.
+ */
+async function claimName(em: EntityManager, organisationId: string, name: string, exceptId?: string) {
   const clash = await em.findOne(DishSchema, { organisation: organisationId, name, ...(exceptId ? { id: { $ne: exceptId } } : {}) });
-  if (clash && !clash.archived) throw conflict(`A dish called "${name}" already exists.`, { name: 'Choose another name; this one is taken.' });
-  return clash;
+  if (!clash) return;
+  if (!clash.archived) throw conflict(`A dish called "${name}" already exists.`, { name: 'Choose another name; this one is taken.' });
+  const suffix = ` (archived ${clash.id.slice(0, 8)})`;
+  clash.name = `${name.slice(0, 200 - suffix.length)}${suffix}`;
+  await em.flush();
 }
 
 export async function createDish(viewer: Viewer, organisationId: string, input: DishInput) {
   const { em } = viewer;
-  const archivedClash = await assertNameFree(em, organisationId, input.name);
-  if (archivedClash) em.remove(archivedClash);
+  await claimName(em, organisationId, input.name);
   const dish = em.create(DishSchema, { id: randomUUID(), ...input, notes: input.notes ?? null, organisation: em.getReference(OrganisationSchema, organisationId), archived: false });
   recordAudit(em, { organisationId, actorId: viewer.user.id, action: 'dish.create', entityType: 'Dish', entityId: dish.id, details: { name: dish.name } });
   await em.flush();
@@ -81,9 +88,10 @@ export async function createDish(viewer: Viewer, organisationId: string, input: 
 export async function updateDish(viewer: Viewer, organisationId: string, dishId: string, input: Partial<DishInput>) {
   const { em } = viewer;
   const dish = await getDish(em, organisationId, dishId);
-  if (input.name && input.name !== dish.name) await assertNameFree(em, organisationId, input.name, dish.id);
   const merged = { ...describeDish(dish), ...input };
   if (merged.minPotTempC < merged.safeCoreTempC) throw unprocessable('The pot must reach at least the safe core temperature.', { minPotTempC: 'Must be at least the safe core temperature.' });
+  if (merged.foodKgPerServing === 0 && merged.waterKgPerServing === 0) throw unprocessable('A serving needs some food or water.', { foodKgPerServing: 'A serving needs some food or water.' });
+  if (input.name && input.name !== dish.name) await claimName(em, organisationId, input.name, dish.id);
   em.assign(dish, input);
   recordAudit(em, { organisationId, actorId: viewer.user.id, action: 'dish.update', entityType: 'Dish', entityId: dish.id, details: { fields: Object.keys(input) } });
   await em.flush();

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import type { EntityManager } from '@mikro-orm/postgresql';
+import { LockMode, type EntityManager } from '@mikro-orm/postgresql';
 import { PlanSchema, type Cooker, type Kitchen, type Plan } from '@/entities';
 import type { KitchenAccess } from '@/lib/auth/guard';
 import { recordAudit } from '@/lib/audit';
@@ -216,6 +216,15 @@ async function nextPublishedVersion(em: EntityManager, kitchenId: string, date: 
   return (last?.version ?? 0) + 1;
 }
 
+/**
+ * Serialises the writes of a kitchen's plans (replace the draft, publish) with a row lock on the
+ * kitchen, taken first in both so they cannot deadlock. Without it, two solves at the same moment
+ * each deleted the (old) draft and inserted their own: two drafts for one day.
+ */
+async function lockKitchenPlans(tx: EntityManager, kitchenId: string): Promise<void> {
+  await tx.execute('select id from kitchens where id = ? for update', [kitchenId]);
+}
+
 /** Solves a new draft for the day (replacing the previous draft of that day). */
 export async function solveDraft(access: KitchenAccess, date: string, timeLimitS: number) {
   return describePlan(await createDraft(access.em, access.kitchen, access.user.id, date, timeLimitS));
@@ -228,6 +237,7 @@ export async function createDraft(em: EntityManager, kitchen: Kitchen, actorId: 
   const result = await planDay(prepared.problem);
   const version = await nextPublishedVersion(em, kitchen.id, date);
   return em.transactional(async (tx) => {
+    await lockKitchenPlans(tx, kitchen.id);
     await tx.nativeDelete(PlanSchema, { kitchen: kitchen.id, date, status: 'draft' });
     const p = tx.create(PlanSchema, {
       id: randomUUID(),
@@ -282,12 +292,24 @@ export async function moveSlot(access: KitchenAccess, planId: string, move: { ba
     throw err;
   }
   if (!check.ok || !check.plan) throw conflict(`This move does not work: ${check.reason ?? 'the simulation refused it'}.`);
-  plan.result = check.plan;
-  plan.fuel = fuelView(kitchen, batches, check.plan.backup.map((b) => b.batchId));
-  plan.cookers = cookerViews(prepared, check.plan);
-  recordAudit(em, { organisationId: kitchen.organisation.id, kitchenId: kitchen.id, actorId: access.user.id, action: 'plan.move-slot', entityType: 'Plan', entityId: plan.id, details: { ...move } });
-  await em.flush();
-  return describePlan(plan);
+  const result = check.plan;
+  const fuel = fuelView(kitchen, batches, result.backup.map((b) => b.batchId));
+  const cookers = cookerViews(prepared, result);
+  // The check above takes a while; the plan may have been published, re-planned or moved meanwhile.
+  // Write only if it is still the draft that was checked (same row version), under the kitchen's
+  // plan lock; otherwise a move could land on a plan just published and change it.
+  const updatedAt = new Date();
+  await em.transactional(async (tx) => {
+    await lockKitchenPlans(tx, kitchen.id);
+    const rows: { status: string; version: number; updated_at: Date }[] = await tx.execute('select status, version, updated_at from plans where id = ? for update', [plan.id]);
+    const cur = rows[0];
+    if (!cur) throw notFound('Plan');
+    if (cur.status !== 'draft') throw conflict(`Plan version ${cur.version} was published while the move was checked and cannot change. Re-plan to make a new draft.`);
+    if (new Date(cur.updated_at).getTime() !== plan.updatedAt.getTime()) throw conflict('The plan changed while this move was checked (another move or a re-plan); reload it and try again.');
+    await tx.nativeUpdate(PlanSchema, { id: plan.id }, { result, fuel, cookers, updatedAt });
+    recordAudit(tx, { organisationId: kitchen.organisation.id, kitchenId: kitchen.id, actorId: access.user.id, action: 'plan.move-slot', entityType: 'Plan', entityId: plan.id, details: { ...move } });
+  });
+  return { ...describePlan(plan), result, fuel, cookers };
 }
 
 /** Publishes a draft as the next numbered version; the previous published version is superseded. */
@@ -298,7 +320,10 @@ export async function publishPlan(access: KitchenAccess, planId: string) {
 /** Publishing without a request (also used by the demo loader). */
 export async function publishDraft(em: EntityManager, kitchen: Kitchen, actorId: string | null, planId: string): Promise<Plan> {
   return em.transactional(async (tx) => {
-    const plan = await tx.findOne(PlanSchema, { id: planId, kitchen: kitchen.id }, { populate: ['kitchen'], lockMode: 4 });
+    await lockKitchenPlans(tx, kitchen.id);
+    // FOR UPDATE (waits): a second publish of the same draft sees it published and gets 409. Not
+    // lockMode 4 (PESSIMISTIC_PARTIAL_WRITE = SKIP LOCKED), which skipped the locked row and answered 404.
+    const plan = await tx.findOne(PlanSchema, { id: planId, kitchen: kitchen.id }, { populate: ['kitchen'], lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!plan) throw notFound('Plan');
     if (plan.status !== 'draft') throw conflict(`Plan version ${plan.version} is already ${plan.status}.`);
     await tx.nativeUpdate(PlanSchema, { kitchen: kitchen.id, date: plan.date, status: 'published' }, { status: 'superseded' });

@@ -1,6 +1,17 @@
 import { z } from 'zod';
 
-export const localDate = z.string({ message: 'Give a date as YYYY-MM-DD.' }).regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD.').refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), 'That date does not exist.');
+/**
+ * A calendar date YYYY-MM-DD that exists. Checked by a round trip through Date.UTC: Date.parse alone
+ * accepts any day up to 31 in every month ("2026-02-30" would silently be 2 March).
+ */
+export const localDate = z
+  .string({ message: 'Give a date as YYYY-MM-DD.' })
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD.')
+  .refine((d) => {
+    const [y, m, day] = d.split('-').map(Number) as [number, number, number];
+    const t = new Date(Date.UTC(y, m - 1, day));
+    return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === day;
+  }, 'That date does not exist.');
 export const clock = z.string({ message: 'Give a time as HH:MM.' }).regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use a 24-hour time as HH:MM, e.g. 12:30.');
 
 export const menuLineSchema = z
@@ -18,3 +29,5 @@ export const menuLineSchema = z
 export const putMenuSchema = z.strictObject({ lines: z.array(menuLineSchema).max(200, 'At most 200 lines a day.') });
 export const copyMenuSchema = z.strictObject({ fromDate: localDate });
 export const dateQuery = z.strictObject({ date: localDate });
+/** A date from the URL path, validated so that a 422 names the field `date` (not "(body)"). */
+export const parsePathDate = (date: string): string => dateQuery.parse({ date }).date;

@@ -2,8 +2,11 @@ import { randomUUID } from 'node:crypto';
 import { MikroORM, type EntityManager } from '@mikro-orm/postgresql';
 import { inject } from 'vitest';
 import config from '../../mikro-orm.config';
-import { KitchenSchema, MembershipSchema, OrganisationSchema, UserSchema, type Kitchen, type Organisation, type Role } from '../../entities';
+import { CookerSchema, DishSchema, KitchenSchema, MembershipSchema, OrganisationSchema, UserSchema, type Kitchen, type Organisation, type Role } from '../../entities';
 import { hashPassword } from '../../lib/auth/password';
+import { DEMO_COOKERS } from '../../lib/demo/cookers';
+import { DEMO_DISHES } from '../../lib/demo/menus';
+import type { DishInput } from '../../lib/validations/dishes';
 
 export const PASSWORD = 'fixture-password-1';
 
@@ -63,4 +66,45 @@ export async function createWorld(em?: EntityManager): Promise<World> {
   };
   await e.flush();
   return { org, otherOrg, kitchenA, kitchenB, otherKitchen, emails };
+}
+
+/**
+ * Puts a demo kitchen's cookers (lib/demo/cookers.ts; default the two of "baobab": a 5 m² dish
+ * with two 40 L pots and a box cooker with one 15 L pot) into a kitchen through the ORM, as the
+ * demo loader does. Returns the cooker ids in the order of the demo list.
+ */
+export async function addDemoCookers(kitchen: Kitchen, slug = 'baobab'): Promise<string[]> {
+  const e = (await testOrm()).em.fork();
+  const ids: string[] = [];
+  for (const c of DEMO_COOKERS[slug] ?? []) {
+    const { customMediumId: _c, pots, ...rest } = c;
+    const id = randomUUID();
+    e.create(CookerSchema, {
+      id,
+      ...rest,
+      pots: pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 })),
+      kitchen: e.getReference(KitchenSchema, kitchen.id),
+      customMedium: null,
+      archived: false,
+    });
+    ids.push(id);
+  }
+  await e.flush();
+  return ids;
+}
+
+/**
+ * A small dish library for an organisation (default: the demo dishes of lib/demo/menus.ts), saved
+ * through the ORM. Returns the dish ids by name.
+ */
+export async function addDishLibrary(organisation: Organisation, dishes: DishInput[] = DEMO_DISHES): Promise<Record<string, string>> {
+  const e = (await testOrm()).em.fork();
+  const ids: Record<string, string> = {};
+  for (const d of dishes) {
+    const id = randomUUID();
+    e.create(DishSchema, { id, ...d, notes: d.notes ?? null, organisation: e.getReference(OrganisationSchema, organisation.id), archived: false });
+    ids[d.name] = id;
+  }
+  await e.flush();
+  return ids;
 }
