@@ -8,6 +8,8 @@ import { AuditEventSchema } from './audit-event';
 import { LoginAttemptSchema } from './login-attempt';
 import { StorageMediumSchema } from './storage-medium';
 import { CookerSchema } from './cooker';
+import { ForecastSchema } from './forecast';
+import { ForecastPointSchema } from './forecast-point';
 
 export * from './base';
 export * from './organisation';
@@ -20,6 +22,8 @@ export * from './audit-event';
 export * from './login-attempt';
 export * from './storage-medium';
 export * from './cooker';
+export * from './forecast';
+export * from './forecast-point';
 
 /** Every entity, listed explicitly for mikro-orm.config.ts. */
 export const allEntities = [
@@ -33,4 +37,6 @@ export const allEntities = [
   LoginAttemptSchema,
   StorageMediumSchema,
   CookerSchema,
+  ForecastSchema,
+  ForecastPointSchema,
 ];

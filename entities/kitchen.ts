@@ -14,6 +14,12 @@ export interface Kitchen extends Base {
   /** IANA time zone, e.g. "Africa/Nairobi" */
   timeZone: string;
   locale: Locale;
+  /**
+   * Monthly clear-sky index, January … December [0–1]: the share of the clear-sky global irradiance a
+   * typical day of the month gets, used by the clear-sky fallback when no forecast exists. Null = the
+   * defaults of lib/forecast/clearness.ts. Set by the coordinator.
+   */
+  clearness?: number[] | null;
 }
 
 export const KitchenSchema = new EntitySchema<Kitchen>({
@@ -28,5 +34,6 @@ export const KitchenSchema = new EntitySchema<Kitchen>({
     altitudeM: { type: 'double' },
     timeZone: { type: 'string', length: 64 },
     locale: { type: 'string', length: 8, default: 'en' },
+    clearness: { type: 'json', nullable: true },
   },
 });
