@@ -1,8 +1,21 @@
-import { clearSkyHourly, resolveWeatherToAperture, type ApertureGeometry, type HourlyWeather, type Site } from '@/lib/solar';
+import { resolveWeatherToAperture, type ApertureGeometry, type HourlyWeather, type Site } from '@/lib/solar';
 import { boilingPointAtAltitudeC, simulateCooker, type CookerSpec, type PotLoad, type SimulationResult } from '@/lib/thermal';
 import { addDays, zonedDayBoundsMs, zonedTimeToUtcMs } from '@/lib/time';
+import { fillWithClearSky } from './weather-fill';
 
 export type WeatherSource = 'forecast' | 'stale-forecast' | 'upload' | 'clear-sky';
+
+/** Where the weather of a prediction comes from and how old it is (passed through from lib/forecast). */
+export interface WeatherMeta {
+  source: WeatherSource;
+  /** When the forecast was issued / fetched (ISO 8601); null for the clear-sky fallback. */
+  issuedAt: string | null;
+  fetchedAt: string | null;
+  /** Age of the forecast when asked [s]; null for the clear-sky fallback. */
+  ageS: number | null;
+  /** A sentence on the fallback in use, if any. */
+  note: string | null;
+}
 
 export interface DayPredictionInput {
   site: Site;
@@ -11,14 +24,19 @@ export interface DayPredictionInput {
   date: string;
   spec: CookerSpec;
   geometry: ApertureGeometry;
-  /** Hourly weather covering the day before and the day (for spin-up); clear sky when absent. */
+  /**
+   * Hourly weather for the day before and the day (for spin-up), each hour starting on a whole UTC hour;
+   * missing hours (or all, when absent) are filled with clear sky × clearness.
+   */
   hourly?: HourlyWeather[];
+  /** Source and age of `hourly`; default 'forecast' with hours, 'clear-sky' without. */
+  weather?: WeatherMeta;
   /** Store temperature at local midnight [°C]; when absent, the store is spun up over the previous day. */
   initialStoreTempC?: number;
   /** Batches; when absent, one reference batch of water in the first pot shows when a pot gets hot. */
   loads?: PotLoad[];
-  /** Scale of clear-sky irradiance when no forecast exists (monthly clearness) [0–1]. */
-  clearness?: number;
+  /** Scale of clear-sky irradiance where no forecast exists: one value or 12 monthly values [0–1]; default 1. */
+  clearness?: number | readonly number[];
   /** Output resolution of the series [min]; default 10. */
   outputStepMin?: number;
 }
@@ -26,6 +44,8 @@ export interface DayPredictionInput {
 export interface DayPrediction {
   date: string;
   source: WeatherSource;
+  /** Source and age of the weather, and how many hours were filled with clear sky (in the day, and in all). */
+  weather: WeatherMeta & { filledHours: number; filledHoursInDay: number };
   /** Output series at outputStepMin resolution. */
   series: { t: number[]; storeTempC: number[]; potTempC: Record<string, (number | null)[]>; charge: number[]; gApertureWm2: number[]; tAirC: number[] };
   loads: SimulationResult['loads'];
@@ -47,10 +67,16 @@ const STEP_S = 60;
 export function predictDay(input: DayPredictionInput): DayPrediction {
   const [dayStart, dayEnd] = zonedDayBoundsMs(input.date, input.timeZone);
   const prevStart = zonedDayBoundsMs(addDays(input.date, -1), input.timeZone)[0];
-  const source: WeatherSource = input.hourly ? 'forecast' : 'clear-sky';
-  const hourly =
-    input.hourly ??
-    clearSkyHourly(input.site, prevStart - 3_600_000, dayEnd + 3_600_000, { clearness: input.clearness ?? 1, tAirC: { minC: 16, maxC: 31 } });
+  const given = input.hourly ?? [];
+  const { hourly, filledMs } = fillWithClearSky(input.site, prevStart - 3_600_000, dayEnd + 3_600_000, given, input.clearness ?? 1);
+  const filledHoursInDay = filledMs.filter((t) => t + 3_600_000 > dayStart && t < dayEnd).length;
+  const hoursInDay = Math.ceil(dayEnd / 3_600_000) - Math.floor(dayStart / 3_600_000);
+  let meta: WeatherMeta = input.weather ?? { source: given.length ? 'forecast' : 'clear-sky', issuedAt: null, fetchedAt: null, ageS: null, note: null };
+  if (meta.source !== 'clear-sky' && filledHoursInDay >= hoursInDay) {
+    // Nothing of the given weather falls in the day: say so rather than name a forecast that was not used.
+    meta = { source: 'clear-sky', issuedAt: null, fetchedAt: null, ageS: null, note: 'The weather given does not cover this day; clear sky × clearness is used.' };
+  }
+  const source = meta.source;
   const steps = resolveWeatherToAperture(input.site, input.geometry, hourly, STEP_S);
   const firstT = steps[0]?.t ?? dayStart;
   const from = (ms: number) => Math.max(0, Math.round((ms - firstT) / (STEP_S * 1000)));
@@ -97,6 +123,7 @@ export function predictDay(input: DayPredictionInput): DayPrediction {
   return {
     date: input.date,
     source,
+    weather: { ...meta, filledHours: filledMs.length, filledHoursInDay },
     series: {
       t: pick(sim.series.t),
       storeTempC: pick(sim.series.storeTempC),
