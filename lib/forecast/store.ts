@@ -19,6 +19,12 @@ export interface NewForecast {
   hours: readonly HourlyWeather[];
   uploadName?: string;
   uploadMode?: UploadMode;
+  /**
+   * The span the forecast is meant for [epoch ms]; default the span of its hours. An upload is meant for its
+   * chosen day only (its hours of the day before serve the store's spin-up, not that day's plan).
+   */
+  coversFromMs?: number;
+  coversToMs?: number;
   /** More writes in the same transaction (e.g. the audit event of an upload). */
   inTransaction?: (tx: EntityManager, forecastId: string) => void;
 }
@@ -43,8 +49,8 @@ export async function saveForecast(em: EntityManager, kitchen: Kitchen, f: NewFo
         fetchedAt: new Date(f.fetchedAtMs),
         status: 'ok',
         error: null,
-        coversFrom: new Date(f.hours[0]!.t),
-        coversTo: new Date(f.hours[f.hours.length - 1]!.t + HOUR_MS),
+        coversFrom: new Date(f.coversFromMs ?? f.hours[0]!.t),
+        coversTo: new Date(f.coversToMs ?? f.hours[f.hours.length - 1]!.t + HOUR_MS),
         uploadName: f.uploadName ?? null,
         uploadMode: f.uploadMode ?? null,
       });

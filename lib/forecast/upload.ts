@@ -95,6 +95,9 @@ const hhmm = (ms: number, timeZone: string) => new Intl.DateTimeFormat('en-GB', 
 export interface PreparedUpload {
   kind: UploadKind;
   hours: HourlyWeather[];
+  /** The chosen day on whole UTC hours [epoch ms]: what the upload covers. */
+  coversFromMs: number;
+  coversToMs: number;
   warnings: string[];
 }
 
@@ -143,7 +146,7 @@ export function prepareUpload(kitchen: Pick<Kitchen, 'timeZone' | 'latitude' | '
     });
   }
   if (hours.some((h) => !Number.isFinite(h.tAirC))) warnings.push('The file has no air temperature for some hours; a typical daily cycle is used for them.');
-  return { kind, hours, warnings };
+  return { kind, hours, coversFromMs: Math.floor(dayStart / HOUR_MS) * HOUR_MS, coversToMs: Math.ceil(dayEnd / HOUR_MS) * HOUR_MS, warnings };
 }
 
 /**
@@ -164,6 +167,8 @@ export async function createForecastUpload(
     issuedAtMs: nowMs,
     fetchedAtMs: nowMs,
     hours: prepared.hours,
+    coversFromMs: prepared.coversFromMs,
+    coversToMs: prepared.coversToMs,
     uploadName,
     uploadMode: input.mode,
     inTransaction: (tx, forecastId) =>
@@ -185,8 +190,8 @@ export async function createForecastUpload(
     mode: input.mode,
     date: input.date,
     hours: prepared.hours.length,
-    coversFrom: new Date(prepared.hours[0]!.t).toISOString(),
-    coversTo: new Date(prepared.hours[prepared.hours.length - 1]!.t + HOUR_MS).toISOString(),
+    coversFrom: new Date(prepared.coversFromMs).toISOString(),
+    coversTo: new Date(prepared.coversToMs).toISOString(),
     warnings: prepared.warnings,
   };
 }

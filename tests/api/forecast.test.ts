@@ -145,6 +145,11 @@ describe('POST /api/v1/kitchens/{id}/forecast/uploads', () => {
     expect(g.json.uploadName).toBe('my-station.csv');
     const noon = g.json.hours.find((h: { t: string }) => h.t === `${tomorrow()}T12:00:00.000Z`);
     expect(noon.ghiWm2).toBe(Math.round(850 * Math.sin((Math.PI * 6.5) / 12)));
+    // The file's day before serves the store's spin-up only: that day stays on the forecast.
+    const dayBefore = await c.cookA!.get(`/api/v1/kitchens/${w.kitchenA.id}/forecast?date=${addDays(tomorrow(), -1)}`);
+    expect(dayBefore.json.source).toBe('forecast');
+    expect(r.json.coversFrom).toBe(`${tomorrow()}T00:00:00.000Z`);
+    expect(r.json.coversTo).toBe(`${addDays(tomorrow(), 1)}T00:00:00.000Z`);
   });
 
   it('an EPW typical day for the date', async () => {
