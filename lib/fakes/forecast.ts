@@ -142,7 +142,12 @@ export function fakeForecastBody(q: FakeQuery, nowMs: number, clouds = true) {
     out.diffuse_radiation.push(r1(dhi));
     const p = pattern(t);
     const solarHour = t / HOUR_MS + q.longitude / 15;
-    out.temperature_2m.push(r1(dailyAirTemperatureC(solarHour, p.minC, p.maxC)));
+    // Daily minimum and maximum blend into the next day's through the day, so the temperature has no step at 00:00 UTC.
+    const next = pattern(t + DAY_MS);
+    const f = (t % DAY_MS) / DAY_MS;
+    const minC = (1 - f) * p.minC + f * next.minC;
+    const maxC = (1 - f) * p.maxC + f * next.maxC;
+    out.temperature_2m.push(r1(dailyAirTemperatureC(solarHour, minC, maxC)));
     const sh = ((solarHour % 24) + 24) % 24;
     const windMs = 1.5 + 2.5 * Math.max(0, Math.sin((Math.PI * (sh - 8)) / 12)) + (p.gust[Math.round((t % DAY_MS) / HOUR_MS)] as number);
     out.wind_speed_10m.push(Math.round((q.windUnit === 'ms' ? windMs : windMs * 3.6) * 100) / 100);
