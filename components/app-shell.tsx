@@ -9,7 +9,7 @@ import { PrefsProvider, type Prefs } from './prefs';
 
 export interface NavItem {
   href: string;
-  key: 'home' | 'kitchen' | 'cookers' | 'people' | 'organisation' | 'settings' | 'mailbox';
+  key: 'home' | 'kitchen' | 'cookers' | 'forecast' | 'people' | 'organisation' | 'settings' | 'mailbox';
 }
 
 export interface ShellProps {
@@ -81,6 +81,16 @@ export function AppShell({ user, nav, kitchens, prefs, children }: ShellProps) {
                 onClick={() => setOpen(false)}
               >
                 {t('cookers')}
+              </Link>
+            )}
+            {currentKitchen && (
+              <Link
+                href={`/kitchens/${currentKitchen}/forecast`}
+                aria-current={pathname.startsWith(`/kitchens/${currentKitchen}/forecast`) ? 'page' : undefined}
+                className="rounded-md px-3 py-2 text-sm font-semibold hover:bg-clay-700"
+                onClick={() => setOpen(false)}
+              >
+                {t('forecast')}
               </Link>
             )}
           </nav>
