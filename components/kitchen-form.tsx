@@ -6,7 +6,7 @@ import { apiFetch } from '@/lib/client/api';
 import { Field, Status } from './field';
 import type { KitchenSummary } from './kitchen-list';
 
-type Values = { name: string; latitude: string; longitude: string; altitudeM: string; timeZone: string; locale: 'en' | 'fr' };
+type Values = { name: string; latitude: string; longitude: string; altitudeM: string; timeZone: string; locale: 'en' | 'fr'; clearness: string[] };
 
 /** Create (POST) or edit (PATCH) a kitchen; errors from the API appear next to their fields. */
 export function KitchenForm({ kitchen, onSaved }: { kitchen?: KitchenSummary & { locale?: string }; onSaved?: (k: KitchenSummary) => void }) {
@@ -19,22 +19,41 @@ export function KitchenForm({ kitchen, onSaved }: { kitchen?: KitchenSummary & {
     altitudeM: kitchen ? String(kitchen.altitudeM) : '0',
     timeZone: kitchen?.timeZone ?? 'UTC',
     locale: kitchen?.locale === 'fr' ? 'fr' : 'en',
+    clearness: (kitchen?.clearness?.values ?? []).map(String),
   });
+  const [clearnessDefault, setClearnessDefault] = useState(kitchen?.clearness?.isDefault ?? true);
   const [fields, setFields] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
   const [busy, setBusy] = useState(false);
-  const set = (k: keyof Values) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setV({ ...v, [k]: e.target.value });
+  const set = (k: Exclude<keyof Values, 'clearness'>) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setV({ ...v, [k]: e.target.value });
+  const setMonth = (m: number) => (e: React.ChangeEvent<HTMLInputElement>) => {
+    setClearnessDefault(false);
+    setV({ ...v, clearness: v.clearness.map((x, i) => (i === m ? e.target.value : x)) });
+  };
+  const months = t.raw('clearness.months') as string[];
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
     setBusy(true);
-    const body = { ...v, latitude: Number(v.latitude), longitude: Number(v.longitude), altitudeM: Number(v.altitudeM) };
+    const { clearness, ...rest } = v;
+    const body = {
+      ...rest,
+      latitude: Number(v.latitude),
+      longitude: Number(v.longitude),
+      altitudeM: Number(v.altitudeM),
+      // Only an edit sends the monthly values; unchanged defaults stay defaults (null).
+      ...(kitchen && clearness.length === 12 ? { clearness: clearnessDefault ? null : clearness.map(Number) } : {}),
+    };
     const r = await apiFetch<KitchenSummary>(kitchen ? `/api/v1/kitchens/${kitchen.id}` : '/api/v1/kitchens', { method: kitchen ? 'PATCH' : 'POST', body });
     setBusy(false);
     if (r.ok) {
       setFields({});
       setStatus({ msg: kitchen ? tc('saved') : t('created'), tone: 'info' });
       onSaved?.(r.data);
+      if (r.data.clearness) {
+        setV((cur) => ({ ...cur, clearness: r.data.clearness!.values.map(String) }));
+        setClearnessDefault(r.data.clearness.isDefault);
+      }
     } else {
       setFields(r.error.fields ?? {});
       setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
@@ -60,6 +79,26 @@ export function KitchenForm({ kitchen, onSaved }: { kitchen?: KitchenSummary & {
           <option value="fr">Français</option>
         </select>
       </div>
+      {kitchen && v.clearness.length === 12 && (
+        <fieldset className="mb-4">
+          <legend className="label">{t('clearness.title')}</legend>
+          <p className="mb-2 text-sm text-clay-700">{t('clearness.intro')}</p>
+          <div className="grid grid-cols-3 gap-x-3 sm:grid-cols-6">
+            {v.clearness.map((x, m) => (
+              <Field key={m} label={months[m] ?? String(m + 1)} inputMode="decimal" value={x} onChange={setMonth(m)} error={fields[`clearness.${m}`]} />
+            ))}
+          </div>
+          {fields.clearness && <p className="field-error">{fields.clearness}</p>}
+          <p className="text-sm text-clay-700">
+            {t('clearness.default')}{' '}
+            {!clearnessDefault && (
+              <button type="button" className="underline" onClick={() => setClearnessDefault(true)}>
+                {t('clearness.reset')}
+              </button>
+            )}
+          </p>
+        </fieldset>
+      )}
       <button className="btn-primary" disabled={busy}>
         {busy ? tc('loading') : tc('save')}
       </button>

@@ -13,6 +13,8 @@ export interface KitchenSummary {
   longitude: number;
   altitudeM: number;
   timeZone: string;
+  /** Monthly clear-sky index of the clear-sky fallback, January … December. */
+  clearness?: { values: number[]; isDefault: boolean };
   role?: string;
 }
 

@@ -37,9 +37,14 @@ export function KitchenOverview({ kitchenId }: { kitchenId: string }) {
       <div>
         <h1 className="text-2xl font-bold">{kitchen.name}</h1>
         <p className="text-clay-700">{kitchen.organisation.name}</p>
-        <Link href={`/kitchens/${kitchen.id}/cookers`} className="btn-primary mt-3">
-          {t('cookers')}
-        </Link>
+        <div className="mt-3 flex flex-wrap gap-2">
+          <Link href={`/kitchens/${kitchen.id}/cookers`} className="btn-primary">
+            {t('cookers')}
+          </Link>
+          <Link href={`/kitchens/${kitchen.id}/forecast`} className="btn-quiet">
+            {t('forecast')}
+          </Link>
+        </div>
       </div>
       <section aria-labelledby="details" className="card">
         <h2 id="details" className="mb-2 text-lg font-bold">{t('details')}</h2>

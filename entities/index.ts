@@ -11,6 +11,8 @@ import { CookerSchema } from './cooker';
 import { DishSchema } from './dish';
 import { MenuLineSchema } from './menu-line';
 import { PlanSchema } from './plan';
+import { ForecastSchema } from './forecast';
+import { ForecastPointSchema } from './forecast-point';
 
 export * from './base';
 export * from './organisation';
@@ -26,6 +28,8 @@ export * from './cooker';
 export * from './dish';
 export * from './menu-line';
 export * from './plan';
+export * from './forecast';
+export * from './forecast-point';
 
 /** Every entity, listed explicitly for mikro-orm.config.ts. */
 export const allEntities = [
@@ -42,4 +46,6 @@ export const allEntities = [
   DishSchema,
   MenuLineSchema,
   PlanSchema,
+  ForecastSchema,
+  ForecastPointSchema,
 ];

@@ -16,6 +16,12 @@ export interface Kitchen extends Base<'planning'> {
   locale: Locale;
   /** Cooks' shift, turnaround between batches and backup fuels on hand (see KitchenPlanning). */
   planning: KitchenPlanning;
+  /**
+   * Monthly clear-sky index, January … December [0–1]: the share of the clear-sky global irradiance a
+   * typical day of the month gets, used by the clear-sky fallback when no forecast exists. Null = the
+   * defaults of lib/forecast/clearness.ts. Set by the coordinator.
+   */
+  clearness?: number[] | null;
 }
 
 /** How a kitchen plans: shift hours (local HH:MM), turnaround, currency and backup stoves with local prices. */
@@ -49,5 +55,6 @@ export const KitchenSchema = new EntitySchema<Kitchen>({
     timeZone: { type: 'string', length: 64 },
     locale: { type: 'string', length: 8, default: 'en' },
     planning: { type: 'json', onCreate: () => structuredClone(DEFAULT_PLANNING) },
+    clearness: { type: 'json', nullable: true },
   },
 });

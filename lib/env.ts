@@ -17,6 +17,16 @@ const schema = z.object({
   DEV_TOOLS: z.enum(['0', '1']).optional(),
   /** Cookie Secure flag: on when APP_URL is https unless set. */
   COOKIE_SECURE: z.enum(['0', '1']).optional(),
+  /** Base URL of the Open-Meteo forecast API (or the local fake, the default). */
+  FORECAST_URL: z.string().url('FORECAST_URL must be a URL such as https://api.open-meteo.com').default('http://127.0.0.1:4011'),
+  /** Optional key of the commercial forecast endpoint, sent as the `apikey` query parameter. */
+  FORECAST_API_KEY: z.string().optional(),
+  /** UTC hour of the afternoon forecast refresh, on top of the one every 3 hours. */
+  FORECAST_AFTERNOON_HOUR_UTC: z.coerce.number().int().min(0, 'FORECAST_AFTERNOON_HOUR_UTC is 0–23').max(23, 'FORECAST_AFTERNOON_HOUR_UTC is 0–23').default(13),
+  /** Forecasts whose hours ended longer ago than this are deleted by the refresh job [days]. */
+  FORECAST_RETENTION_DAYS: z.coerce.number().int().min(1, 'FORECAST_RETENTION_DAYS is at least 1').max(3650).default(14),
+  /** Per-try timeout of a forecast request [ms]. */
+  FORECAST_TIMEOUT_MS: z.coerce.number().int().min(100).max(120_000).default(10_000),
 });
 
 export type Env = z.infer<typeof schema> & { sessionSecret: string; devTools: boolean; cookieSecure: boolean };

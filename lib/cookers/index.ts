@@ -7,6 +7,7 @@ import { notFound, unprocessable } from '@/lib/http/errors';
 import { getMedium, listMedia } from '@/lib/materials';
 import type { CookerInput } from '@/lib/validations/cookers';
 import { predictDay } from '@/lib/prediction/predict-day';
+import { getWeatherForDay, kitchenSite, weatherMeta } from '@/lib/forecast/weather-for-day';
 import { addDays, localDateString } from '@/lib/time';
 import { toApertureGeometry, toCookerSpec } from './spec';
 
@@ -113,13 +114,21 @@ export function defaultPredictionDate(kitchen: Kitchen, now = Date.now()): strin
   return addDays(localDateString(now, kitchen.timeZone), 1);
 }
 
-export function predictCookerDay(kitchen: Kitchen, cooker: Cooker, date: string, initialStoreTempC?: number) {
+/**
+ * A cooker's predicted day on the weather the fallback chain picks (forecast, stale forecast, upload or clear
+ * sky × the kitchen's monthly clear-sky index; lib/forecast getWeatherForDay), with its source and age.
+ */
+export async function predictCookerDay(em: EntityManager, kitchen: Kitchen, cooker: Cooker, date: string, initialStoreTempC?: number) {
+  const weather = await getWeatherForDay(em, kitchen, date);
   return predictDay({
-    site: { latitudeDeg: kitchen.latitude, longitudeDeg: kitchen.longitude, altitudeM: kitchen.altitudeM },
+    site: kitchenSite(kitchen),
     timeZone: kitchen.timeZone,
     date,
     spec: toCookerSpec(cooker, cooker.customMedium),
     geometry: toApertureGeometry(cooker),
+    hourly: weather.hourly,
+    weather: weatherMeta(weather),
+    clearness: weather.clearness.values,
     ...(initialStoreTempC !== undefined ? { initialStoreTempC } : {}),
   });
 }

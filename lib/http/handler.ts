@@ -61,11 +61,14 @@ export function route<P = Record<string, string>>(
 
 export const DEFAULT_BODY_LIMIT = 256 * 1024;
 
-/** Reads the body as text under a size limit (413 beyond it), without trusting Content-Length alone. */
-export async function readBodyText(req: Request, limitBytes = DEFAULT_BODY_LIMIT): Promise<string> {
+/**
+ * Reads the body as bytes under a size limit (413 beyond it), without trusting Content-Length alone.
+ * @param tooLargeError the error to throw instead of the generic 413 (e.g. one naming the file limit)
+ */
+export async function readBodyBytes(req: Request, limitBytes = DEFAULT_BODY_LIMIT, tooLargeError: HttpError = tooLarge(limitBytes)): Promise<Buffer> {
   const declared = Number(req.headers.get('content-length') ?? '0');
-  if (declared > limitBytes) throw tooLarge(limitBytes);
-  if (!req.body) return '';
+  if (declared > limitBytes) throw tooLargeError;
+  if (!req.body) return Buffer.alloc(0);
   const reader = req.body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
@@ -75,11 +78,31 @@ export async function readBodyText(req: Request, limitBytes = DEFAULT_BODY_LIMIT
     size += value.byteLength;
     if (size > limitBytes) {
       await reader.cancel();
-      throw tooLarge(limitBytes);
+      throw tooLargeError;
     }
     chunks.push(value);
   }
-  return Buffer.concat(chunks).toString('utf8');
+  return Buffer.concat(chunks);
+}
+
+/** Reads the body as text under a size limit (413 beyond it), without trusting Content-Length alone. */
+export async function readBodyText(req: Request, limitBytes = DEFAULT_BODY_LIMIT): Promise<string> {
+  return (await readBodyBytes(req, limitBytes)).toString('utf8');
+}
+
+/**
+ * Reads a multipart/form-data body under a size limit (413 beyond it) and parses it; 400 when it is not
+ * multipart or cannot be parsed.
+ */
+export async function parseMultipart(req: Request, limitBytes: number, tooLargeError?: HttpError): Promise<FormData> {
+  const type = req.headers.get('content-type') ?? '';
+  if (!/^multipart\/form-data;\s*boundary=/i.test(type)) throw badRequest('Send the form as multipart/form-data.');
+  const bytes = await readBodyBytes(req, limitBytes, tooLargeError);
+  try {
+    return await new Request('http://local/', { method: 'POST', headers: { 'content-type': type }, body: new Uint8Array(bytes) }).formData();
+  } catch {
+    throw badRequest('The multipart form could not be read.');
+  }
 }
 
 /** Parses a JSON body and validates it; 400 for malformed JSON, 422 for a wrong shape, 413 when too large. */

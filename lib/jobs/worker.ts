@@ -1,5 +1,7 @@
 import type PgBoss from 'pg-boss';
+import { getEm } from '@/lib/db';
 import { QUEUES } from './boss';
+import { forecastRefreshCron, handleForecastRefresh, type ForecastRefreshData } from './forecast-refresh';
 
 export interface HeartbeatData {
   sentAt: string;
@@ -22,4 +24,17 @@ export async function registerWorkers(boss: PgBoss): Promise<void> {
   });
   // Every 5 minutes; pg-boss keeps one schedule per name however many workers run.
   await boss.schedule(QUEUES.heartbeat, '*/5 * * * *', { sentAt: new Date().toISOString() });
+
+  await boss.work<ForecastRefreshData>(QUEUES.forecastRefresh, async (jobs) => {
+    const out = [];
+    for (const job of jobs) {
+      const s = await handleForecastRefresh(await getEm(), job.data);
+      const count = (k: string) => s.outcomes.filter((o) => o.status === k).length;
+      console.log(`[worker] forecast-refresh: ${count('stored')} stored, ${count('unchanged')} unchanged, ${count('failed')} failed, ${s.pruned} pruned`);
+      out.push({ stored: count('stored'), unchanged: count('unchanged'), failed: count('failed'), pruned: s.pruned });
+    }
+    // pg-boss stores the result as the job's output when the batch holds one job (the default batch size).
+    return out.length === 1 ? out[0] : out;
+  });
+  await boss.schedule(QUEUES.forecastRefresh, forecastRefreshCron(), {});
 }

@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { KitchenSchema, MembershipSchema, OrganisationSchema, type Kitchen } from '@/entities';
 import { getVisibleKitchens, rolesForKitchen, requireCoordinatorOrg, type KitchenAccess, type Viewer } from '@/lib/auth/guard';
 import { recordAudit } from '@/lib/audit';
+import { kitchenClearness } from '@/lib/forecast/clearness';
 import type { z } from 'zod';
 import type { createKitchenSchema, updateKitchenSchema } from '@/lib/validations/kitchens';
 
@@ -15,6 +16,7 @@ export function describeKitchen(k: Kitchen, role?: string) {
     altitudeM: k.altitudeM,
     timeZone: k.timeZone,
     locale: k.locale,
+    clearness: kitchenClearness(k),
     ...(role ? { role } : {}),
   };
 }

@@ -15,6 +15,7 @@ const kitchen = z.object({
   altitudeM: z.number().describe('[m]'),
   timeZone: z.string(),
   locale: z.string(),
+  clearness: z.object({ values: z.array(z.number()).describe('monthly clear-sky index of the clear-sky fallback, January … December [0–1]'), isDefault: z.boolean() }),
   role: z.enum(['coordinator', 'lead', 'cook']).optional(),
 });
 const me = z.object({

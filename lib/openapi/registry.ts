@@ -9,6 +9,8 @@ export interface Operation {
   /** Roles allowed; empty = public. */
   roles: string[];
   body?: ZodType;
+  /** Media type of the body; default JSON. */
+  bodyType?: 'application/json' | 'multipart/form-data';
   query?: ZodType;
   /** Response schema of the success status, if JSON. */
   response?: ZodType;
@@ -63,7 +65,7 @@ export function buildOpenApi(operations: Operation[], info: { version: string; s
       tags: [op.tag],
       ...(op.roles.length ? { security: [{ session: [] }], description: `Roles: ${op.roles.join(', ')}.` } : { security: [] }),
       ...(params.length ? { parameters: params } : {}),
-      ...(op.body ? { requestBody: { required: true, content: { 'application/json': { schema: bodySchema(op.body) } } } } : {}),
+      ...(op.body ? { requestBody: { required: true, content: { [op.bodyType ?? 'application/json']: { schema: bodySchema(op.body) } } } } : {}),
       responses,
     };
   }

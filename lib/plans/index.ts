@@ -54,11 +54,11 @@ async function prepareProblem(em: EntityManager, kitchen: Kitchen, date: string,
     if (!lines.length) throw unprocessable(`There is no menu for ${date}. Enter the menu first.`, { date: 'No menu on this day.' });
     menuBatches = splitIntoBatches(lines, cookers, kitchen, date);
   }
-  const weather = await getPlanningWeather(kitchen, date);
+  const weather = await getPlanningWeather(em, kitchen, date);
   const site = kitchenSite(kitchen);
   const plannerCookers = cookers.map((c) => {
     const spec = toCookerSpec(c, c.customMedium);
-    const day = prepareDay({ site, timeZone: kitchen.timeZone, date, spec, geometry: toApertureGeometry(c), hourly: weather.hourly, hourlySource: weather.source });
+    const day = prepareDay({ site, timeZone: kitchen.timeZone, date, spec, geometry: toApertureGeometry(c), hourly: weather.hourly, weather: weather.meta, clearness: weather.clearness });
     return { id: c.id, name: c.name, spec, weather: day.steps, initialStoreTempC: day.initialStoreTempC };
   });
   const batches: PlannerBatch[] = menuBatches.map((b) => ({
@@ -88,7 +88,7 @@ async function prepareProblem(em: EntityManager, kitchen: Kitchen, date: string,
     seed: 1,
     timeZone: kitchen.timeZone,
   };
-  return { problem, menuBatches, cookers, weatherSource: weather.source };
+  return { problem, menuBatches, cookers, weatherSource: weather.meta.source };
 }
 
 /** Each cooker's store through the day under the plan's loads (full simulation), at 10-min resolution. */

@@ -1,15 +1,19 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
 import type { Kitchen } from '@/entities';
 import type { HourlyWeather } from '@/lib/solar';
-import { clearSkyForDay, type WeatherSource } from '@/lib/prediction/predict-day';
+import type { WeatherMeta } from '@/lib/prediction/predict-day';
+import { getWeatherForDay, kitchenSite, weatherMeta } from '@/lib/forecast';
+
+export { kitchenSite };
 
 export interface KitchenDayWeather {
   hourly: HourlyWeather[];
-  source: WeatherSource;
+  meta: WeatherMeta;
+  clearness: readonly number[];
 }
 
-export const kitchenSite = (k: Pick<Kitchen, 'latitude' | 'longitude' | 'altitudeM'>) => ({ latitudeDeg: k.latitude, longitudeDeg: k.longitude, altitudeM: k.altitudeM });
-
-/** The hourly weather a kitchen plans a day with (the day before included, for the store's spin-up). */
-export async function getPlanningWeather(kitchen: Kitchen, date: string): Promise<KitchenDayWeather> {
-  return { hourly: clearSkyForDay(kitchenSite(kitchen), kitchen.timeZone, date), source: 'clear-sky' };
+/** The hourly weather a kitchen plans a day with: the forecast chain of lib/forecast (forecast → stale → upload → clear sky). */
+export async function getPlanningWeather(em: EntityManager, kitchen: Kitchen, date: string): Promise<KitchenDayWeather> {
+  const w = await getWeatherForDay(em, kitchen, date);
+  return { hourly: w.hourly, meta: weatherMeta(w), clearness: w.clearness.values };
 }

@@ -1,8 +1,21 @@
-import { clearSkyHourly, resolveWeatherToAperture, type ApertureGeometry, type HourlyWeather, type Site } from '@/lib/solar';
+import { resolveWeatherToAperture, type ApertureGeometry, type HourlyWeather, type Site } from '@/lib/solar';
 import { boilingPointAtAltitudeC, simulateCooker, simulateCookerSummary, type CookerSpec, type PotLoad, type SimulationResult, type WeatherStep } from '@/lib/thermal';
 import { addDays, zonedDayBoundsMs, zonedTimeToUtcMs } from '@/lib/time';
+import { fillWithClearSky } from './weather-fill';
 
 export type WeatherSource = 'forecast' | 'stale-forecast' | 'upload' | 'clear-sky';
+
+/** Where the weather of a prediction comes from and how old it is (passed through from lib/forecast). */
+export interface WeatherMeta {
+  source: WeatherSource;
+  /** When the forecast was issued / fetched (ISO 8601); null for the clear-sky fallback. */
+  issuedAt: string | null;
+  fetchedAt: string | null;
+  /** Age of the forecast when asked [s]; null for the clear-sky fallback. */
+  ageS: number | null;
+  /** A sentence on the fallback in use, if any. */
+  note: string | null;
+}
 
 export interface DayPredictionInput {
   site: Site;
@@ -11,16 +24,19 @@ export interface DayPredictionInput {
   date: string;
   spec: CookerSpec;
   geometry: ApertureGeometry;
-  /** Hourly weather covering the day before and the day (for spin-up); clear sky when absent. */
+  /**
+   * Hourly weather for the day before and the day (for spin-up), each hour starting on a whole UTC hour;
+   * missing hours (or all, when absent) are filled with clear sky × clearness.
+   */
   hourly?: HourlyWeather[];
-  /** Where `hourly` came from; default 'forecast'. */
-  hourlySource?: WeatherSource;
+  /** Source and age of `hourly`; default 'forecast' with hours, 'clear-sky' without. */
+  weather?: WeatherMeta;
   /** Store temperature at local midnight [°C]; when absent, the store is spun up over the previous day. */
   initialStoreTempC?: number;
   /** Batches; when absent, one reference batch of water in the first pot shows when a pot gets hot. */
   loads?: PotLoad[];
-  /** Scale of clear-sky irradiance when no forecast exists (monthly clearness) [0–1]. */
-  clearness?: number;
+  /** Scale of clear-sky irradiance where no forecast exists: one value or 12 monthly values [0–1]; default 1. */
+  clearness?: number | readonly number[];
   /** Output resolution of the series [min]; default 10. */
   outputStepMin?: number;
 }
@@ -28,6 +44,8 @@ export interface DayPredictionInput {
 export interface DayPrediction {
   date: string;
   source: WeatherSource;
+  /** Source and age of the weather, and how many hours were filled with clear sky (in the day, and in all). */
+  weather: WeatherMeta & { filledHours: number; filledHoursInDay: number };
   /** Output series at outputStepMin resolution. */
   series: { t: number[]; storeTempC: number[]; potTempC: Record<string, (number | null)[]>; charge: number[]; gApertureWm2: number[]; tAirC: number[] };
   loads: SimulationResult['loads'];
@@ -42,6 +60,8 @@ const STEP_S = 60;
 
 export interface PreparedDay {
   source: WeatherSource;
+  /** Source and age of the weather, and how many hours were filled with clear sky. */
+  weather: WeatherMeta & { filledHours: number; filledHoursInDay: number };
   /** 60-s aperture steps over the local day. */
   steps: WeatherStep[];
   /** Store temperature at local midnight [°C] (given, or from the one-day spin-up). */
@@ -50,14 +70,22 @@ export interface PreparedDay {
 
 /**
  * The local day's aperture weather and the store's midnight temperature: the common first half of
- * a prediction and of a plan. Without a starting temperature the store is simulated over the
- * previous day from its lowest useful temperature (a one-day spin-up).
+ * a prediction and of a plan. Missing hours are filled with clear sky × clearness. Without a
+ * starting temperature the store is simulated over the previous day from its lowest useful
+ * temperature (a one-day spin-up), so the morning state follows from yesterday's sun.
  */
-export function prepareDay(input: Pick<DayPredictionInput, 'site' | 'timeZone' | 'date' | 'spec' | 'geometry' | 'hourly' | 'hourlySource' | 'initialStoreTempC' | 'clearness'>): PreparedDay {
+export function prepareDay(input: Pick<DayPredictionInput, 'site' | 'timeZone' | 'date' | 'spec' | 'geometry' | 'hourly' | 'weather' | 'initialStoreTempC' | 'clearness'>): PreparedDay {
   const [dayStart, dayEnd] = zonedDayBoundsMs(input.date, input.timeZone);
   const prevStart = zonedDayBoundsMs(addDays(input.date, -1), input.timeZone)[0];
-  const source: WeatherSource = input.hourly ? (input.hourlySource ?? 'forecast') : 'clear-sky';
-  const hourly = input.hourly ?? clearSkyForDay(input.site, input.timeZone, input.date, input.clearness ?? 1);
+  const given = input.hourly ?? [];
+  const { hourly, filledMs } = fillWithClearSky(input.site, prevStart - 3_600_000, dayEnd + 3_600_000, given, input.clearness ?? 1);
+  const filledHoursInDay = filledMs.filter((t) => t + 3_600_000 > dayStart && t < dayEnd).length;
+  const hoursInDay = Math.ceil(dayEnd / 3_600_000) - Math.floor(dayStart / 3_600_000);
+  let meta: WeatherMeta = input.weather ?? { source: given.length ? 'forecast' : 'clear-sky', issuedAt: null, fetchedAt: null, ageS: null, note: null };
+  if (meta.source !== 'clear-sky' && filledHoursInDay >= hoursInDay) {
+    // Nothing of the given weather falls in the day: say so rather than name a forecast that was not used.
+    meta = { source: 'clear-sky', issuedAt: null, fetchedAt: null, ageS: null, note: 'The weather given does not cover this day; clear sky × clearness is used.' };
+  }
   const all = resolveWeatherToAperture(input.site, input.geometry, hourly, STEP_S);
   const firstT = all[0]?.t ?? dayStart;
   const from = (ms: number) => Math.max(0, Math.round((ms - firstT) / (STEP_S * 1000)));
@@ -74,22 +102,16 @@ export function prepareDay(input: Pick<DayPredictionInput, 'site' | 'timeZone' |
       initialStoreTempC = input.spec.store.minUsefulTempC;
     }
   }
-  return { source, steps, initialStoreTempC };
+  return { source: meta.source, weather: { ...meta, filledHours: filledMs.length, filledHoursInDay }, steps, initialStoreTempC };
 }
 
 /**
  * Predicts a cooker's day: weather → aperture irradiance (lib/solar) → store and pot simulation
  * (lib/thermal), minute by minute, returned at a coarser resolution for charts.
  */
-/** Clear-sky hourly weather for a local day and the day before (the spin-up), the fallback of every prediction. */
-export function clearSkyForDay(site: Site, timeZone: string, date: string, clearness = 1): HourlyWeather[] {
-  const [, dayEnd] = zonedDayBoundsMs(date, timeZone);
-  const prevStart = zonedDayBoundsMs(addDays(date, -1), timeZone)[0];
-  return clearSkyHourly(site, prevStart - 3_600_000, dayEnd + 3_600_000, { clearness, tAirC: { minC: 16, maxC: 31 } });
-}
-
 export function predictDay(input: DayPredictionInput): DayPrediction {
-  const { source, steps: day, initialStoreTempC } = prepareDay(input);
+  const { source, weather, steps: day, initialStoreTempC } = prepareDay(input);
+
   const boilingPointC = boilingPointAtAltitudeC(input.site.altitudeM);
   let referenceLoad: PotLoad | null = null;
   let loads = input.loads;
@@ -119,6 +141,7 @@ export function predictDay(input: DayPredictionInput): DayPrediction {
   return {
     date: input.date,
     source,
+    weather,
     series: {
       t: pick(sim.series.t),
       storeTempC: pick(sim.series.storeTempC),

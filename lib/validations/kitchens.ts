@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { displayName, locale } from './common';
+import { clearnessSchema } from './forecast';
 
 function isTimeZone(tz: string): boolean {
   try {
@@ -28,6 +29,8 @@ export const updateKitchenSchema = z
     altitudeM: kitchenFields.altitudeM.optional(),
     timeZone: kitchenFields.timeZone.optional(),
     locale: kitchenFields.locale.optional(),
+    /** Monthly clear-sky index of the clear-sky fallback, January … December; null restores the defaults. */
+    clearness: clearnessSchema.nullable().optional(),
   })
   .refine((v) => Object.keys(v).length > 0, { message: 'Send at least one field to change.' })
   .meta({ minProperties: 1 }); // the refinement, as the OpenAPI document can say it

@@ -1,6 +1,7 @@
 /**
- * Starts what the API and end-to-end tests need, once per run: the SMTP fake on a free port and
- * the production build served by `next start` against the test database (migrated, demo loaded).
+ * Starts what the API and end-to-end tests need, once per run: the SMTP and forecast fakes on free
+ * ports and the production build served by `next start` against the test database (migrated, demo
+ * loaded), pointed at the fakes.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtemp } from 'node:fs/promises';
@@ -12,12 +13,15 @@ import { randomBytes } from 'node:crypto';
 import type { TestProject } from 'vitest/node';
 import { MikroORM } from '@mikro-orm/postgresql';
 import { startSmtpFake } from '../../lib/fakes/smtp';
+import { startForecastFake } from '../../lib/fakes/forecast';
 
 declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string;
     mailboxDir: string;
     databaseUrl: string;
+    /** Base URL of the forecast fake (Open-Meteo API); POST /__control sets its failure mode. */
+    forecastUrl: string;
   }
 }
 
@@ -69,6 +73,7 @@ export default async function setup(project: TestProject) {
 
   const mailboxDir = await mkdtemp(path.join(tmpdir(), 'hearthcast-mail-'));
   const smtp = await startSmtpFake({ port: 0, dir: mailboxDir });
+  const forecast = await startForecastFake({ port: 0 });
 
   if (!existsSync(path.resolve('.next/BUILD_ID'))) throw new Error('No production build: run `npx next build` (npm test does) before the tests.');
   const port = await freePort();
@@ -81,6 +86,7 @@ export default async function setup(project: TestProject) {
       APP_URL: baseUrl,
       SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
       MAILBOX_DIR: mailboxDir,
+      FORECAST_URL: forecast.url,
       DEV_TOOLS: '1',
       SESSION_SECRET: randomBytes(32).toString('base64url'),
       NEXT_TELEMETRY_DISABLED: '1',
@@ -100,10 +106,12 @@ export default async function setup(project: TestProject) {
   project.provide('baseUrl', baseUrl);
   project.provide('mailboxDir', mailboxDir);
   project.provide('databaseUrl', databaseUrl);
+  project.provide('forecastUrl', forecast.url);
 
   return async () => {
     server.kill('SIGTERM');
     await smtp.close();
+    await forecast.close();
     if (process.env.SHOW_SERVER_LOG === '1') console.log(logs.join(''));
   };
 }

@@ -35,6 +35,22 @@ export class Client {
     return { status: res.status, headers: res.headers, json: json as Record<string, any>, text };
   }
 
+  /** POST a multipart form (e.g. a file upload); fetch sets the boundary. */
+  async postForm(path: string, form: FormData) {
+    const headers: Record<string, string> = { 'x-forwarded-for': this.ip };
+    if (this.cookie) headers.cookie = this.cookie;
+    const res = await fetch(this.baseUrl + path, { method: 'POST', headers, body: form, redirect: 'manual' });
+    const text = await res.text();
+    let json: unknown = null;
+    try {
+      json = text ? JSON.parse(text) : null;
+    } catch {
+      json = null;
+    }
+    // eslint-disable-next-line @typescript-eslint/no-explicit-any
+    return { status: res.status, headers: res.headers, json: json as Record<string, any>, text };
+  }
+
   get = (p: string) => this.request('GET', p);
   post = (p: string, b?: unknown) => this.request('POST', p, b);
   patch = (p: string, b?: unknown) => this.request('PATCH', p, b);

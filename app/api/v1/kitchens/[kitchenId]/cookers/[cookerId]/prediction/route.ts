@@ -13,6 +13,6 @@ export const GET = route<P>(async (req: NextRequest, { params }) => {
   const q = parseQuery(req, predictionQuerySchema);
   const cooker = await getCooker(access, cookerId);
   const date = q.date ?? defaultPredictionDate(access.kitchen);
-  const p = predictCookerDay(access.kitchen, cooker, date, q.initialStoreTempC);
+  const p = await predictCookerDay(access.em, access.kitchen, cooker, date, q.initialStoreTempC);
   return json({ cookerId: cooker.id, timeZone: access.kitchen.timeZone, minUsefulTempC: cooker.minUsefulTempC, maxSafeTempC: cooker.maxSafeTempC, ...p });
 });
