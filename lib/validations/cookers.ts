@@ -22,8 +22,11 @@ export const potSchema = z.strictObject({
   lidUWPerM2K: num('Lid loss coefficient', 0.5, 100, 'W/(m²·K)'),
 });
 
-/** A cooker as the lead enters it; every number with its unit and its range explained. */
-export const cookerBaseSchema = z.strictObject({
+/**
+ * A cooker's fields as they are checked, without defaults: a PATCH must not fill in what it does not
+ * name (zod 4 applies a default inside .optional() to a missing key).
+ */
+const cookerFieldChecks = z.strictObject({
   name: z.string({ message: 'Name the cooker.' }).trim().min(1, 'Name the cooker.').max(200, 'At most 200 characters.'),
   kind: z.enum(COOKER_KINDS, { message: `Kind is one of: ${COOKER_KINDS.join(', ')}.` }),
   apertureM2: num('Aperture area', 0.05, 200, 'm²'),
@@ -32,19 +35,27 @@ export const cookerBaseSchema = z.strictObject({
   surfaceAzimuthDeg: num('Azimuth', 0, 360, '° east of north'),
   collectorModel: z.enum(['iso9806', 'lumped'], { message: 'Collector model is iso9806 or lumped.' }),
   eta0: num('Optical efficiency', 0.05, 0.95, '(fraction)'),
-  a1: num('Loss coefficient a1', 0, 50, 'W/(m²·K)').default(0),
-  a2: num('Loss coefficient a2', 0, 1, 'W/(m²·K²)').default(0),
-  uLossWPerK: num('Collector loss', 0, 500, 'W/K').default(0),
+  a1: num('Loss coefficient a1', 0, 50, 'W/(m²·K)'),
+  a2: num('Loss coefficient a2', 0, 1, 'W/(m²·K²)'),
+  uLossWPerK: num('Collector loss', 0, 500, 'W/K'),
   mediumId: z.string({ message: 'Choose the store medium.' }).refine((id) => id === 'custom' || hasMedium(id), {
     message: `Unknown store medium; choose one of: ${listMediumIds().join(', ')}, or custom.`,
   }),
   customMediumId: z.uuid({ message: 'Choose a custom medium.' }).nullable().optional(),
   storeMassKg: num('Store mass', 1, 50000, 'kg'),
   storeUaWPerK: num('Store heat-loss conductance', 0.01, 200, 'W/K'),
-  storeNodes: z.number().int('Store layers is a whole number.').min(1, 'At least 1 layer.').max(50, 'At most 50 layers.').default(1),
+  storeNodes: z.number().int('Store layers is a whole number.').min(1, 'At least 1 layer.').max(50, 'At most 50 layers.'),
   maxSafeTempC: num('Highest safe store temperature', 40, 400, '°C'),
   minUsefulTempC: num('Lowest useful store temperature', 20, 350, '°C'),
   pots: z.array(potSchema).min(1, 'Add at least one pot.').max(12, 'At most 12 pots.'),
+});
+
+/** A cooker as the lead enters it; every number with its unit and its range explained. The loss terms default to 0, one layer. */
+export const cookerBaseSchema = cookerFieldChecks.extend({
+  a1: cookerFieldChecks.shape.a1.default(0),
+  a2: cookerFieldChecks.shape.a2.default(0),
+  uLossWPerK: cookerFieldChecks.shape.uLossWPerK.default(0),
+  storeNodes: cookerFieldChecks.shape.storeNodes.default(1),
 });
 
 function refineCooker(v: Partial<z.infer<typeof cookerBaseSchema>>, ctx: z.RefinementCtx) {
@@ -66,7 +77,7 @@ function refineCooker(v: Partial<z.infer<typeof cookerBaseSchema>>, ctx: z.Refin
 }
 
 export const createCookerSchema = cookerBaseSchema.superRefine(refineCooker);
-export const updateCookerSchema = cookerBaseSchema.partial().superRefine(refineCooker);
+export const updateCookerSchema = cookerFieldChecks.partial().superRefine(refineCooker);
 export type CookerInput = z.infer<typeof createCookerSchema>;
 
 export const customMediumSchema = z.strictObject({

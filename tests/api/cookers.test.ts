@@ -75,6 +75,9 @@ describe('cooker register', () => {
     expect(r.status).toBe(200);
     expect(r.json.name).toBe('Dish renamed');
     expect(r.json.storeMassKg).toBe(200);
+    // Regression: a PATCH that names only the name must not reset the loss coefficients to their defaults.
+    expect(r.json.a1).toBe(0.6);
+    expect(r.json.a2).toBe(0.002);
     const bad = await c.leadA!.patch(`${base()}/${cookerId}`, { minUsefulTempC: 194 });
     expect(bad.status).toBe(422);
     expect(bad.json.error.fields).toHaveProperty('minUsefulTempC');
