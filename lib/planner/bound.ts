@@ -40,6 +40,17 @@ export interface BoundResult {
   lpStatus: number | null;
 }
 
+/** Rows per family (cooker energy, pot prefix, pot suffix): fewer rows only loosen the bound. */
+const MAX_ROWS_PER_FAMILY = 6;
+
+/** Up to k values spread over a sorted list, always keeping the last one. */
+function thin(sorted: number[], k: number): number[] {
+  if (sorted.length <= k) return sorted;
+  const out: number[] = [];
+  for (let i = 1; i <= k; i++) out.push(sorted[Math.round((i * sorted.length) / k) - 1] as number);
+  return [...new Set(out)];
+}
+
 function shiftTime(m: PModel, a: number, z: number): number {
   let t = 0;
   for (const s of m.shifts) {
@@ -85,7 +96,7 @@ export function computeBound(h: Highs | null, m: PModel, relax: Relaxation, time
     if (ks.length === 0) continue;
     const H = relax.enthalpyJ[c.idx] as (t: number) => number;
     const gain = relax.gainCumJ[c.idx] as Float64Array;
-    const taus = [...new Set(ks.map((k) => (m.batches[(vars[k] as V).b] as PBatch).serveBy))].sort((a, z) => a - z);
+    const taus = thin([...new Set(ks.map((k) => (m.batches[(vars[k] as V).b] as PBatch).serveBy))].sort((a, z) => a - z), MAX_ROWS_PER_FAMILY);
     for (const tau of taus) {
       const inRow = ks.filter((k) => (m.batches[(vars[k] as V).b] as PBatch).serveBy <= tau);
       const floor = Math.min(...inRow.map((k) => (m.batches[(vars[k] as V).b] as PBatch).raw.minTempC)) - FLOOR_MARGIN_K;
@@ -98,13 +109,13 @@ export function computeBound(h: Highs | null, m: PModel, relax: Relaxation, time
       if (kp.length < 2) continue;
       const occ = (k: number) => (relax.dminMs[(vars[k] as V).b]?.[c.idx]?.[p.idx] ?? 0) + m.turnMs;
       const bat = (k: number) => m.batches[(vars[k] as V).b] as PBatch;
-      const ends = [...new Set(kp.map((k) => bat(k).serveBy))].sort((a, z) => a - z);
+      const ends = thin([...new Set(kp.map((k) => bat(k).serveBy))].sort((a, z) => a - z), MAX_ROWS_PER_FAMILY);
       for (const z of ends) {
         const inRow = kp.filter((k) => bat(k).serveBy <= z);
         const a = Math.max(c.t0, Math.min(...inRow.map((k) => bat(k).earliest)));
         rows.push({ idx: inRow, val: inRow.map(occ), ub: shiftTime(m, a, Math.min(z, c.tEnd)) });
       }
-      const begins = [...new Set(kp.map((k) => bat(k).earliest))].sort((a, z) => a - z);
+      const begins = thin([...new Set(kp.map((k) => bat(k).earliest))].sort((a, z) => a - z), MAX_ROWS_PER_FAMILY);
       for (const a of begins) {
         const inRow = kp.filter((k) => bat(k).earliest >= a);
         const z = Math.min(c.tEnd, Math.max(...inRow.map((k) => bat(k).serveBy)));
@@ -112,6 +123,13 @@ export function computeBound(h: Highs | null, m: PModel, relax: Relaxation, time
       }
     }
   }
+  // A capacity row that holds even with every variable at 1 is redundant: drop it. If none is left,
+  // the LP optimum is the simple bound.
+  const nBatchRows = byBatch.size;
+  const kept = rows.filter((row, r) => r < nBatchRows || row.val.reduce((a, v) => a + v, 0) > row.ub * (1 + 1e-9));
+  if (kept.length === nBatchRows) return { bound: simple, method: BOUND_METHOD_LP, lpStatus: 7 };
+  rows.length = 0;
+  rows.push(...kept);
   // CSC matrix.
   const n = vars.length;
   const colEntries: { r: number; v: number }[][] = vars.map(() => []);

@@ -66,7 +66,7 @@ export interface SolveOutcome {
 export function solveModel(h: Highs, data: ModelData, timeLimitS: number, start?: number[]): SolveOutcome {
   const model = h.createModel(data);
   try {
-    model.options.set({ output_flag: false, time_limit: Math.max(0.05, timeLimitS), mip_rel_gap: 1e-9, random_seed: 1 });
+    model.options.set({ output_flag: false, time_limit: Math.max(0.02, timeLimitS), mip_rel_gap: 1e-9, random_seed: 1 });
     if (start) model.setSolution({ colValue: start });
     model.run();
     const status = model.getModelStatus() as number;

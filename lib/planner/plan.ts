@@ -32,9 +32,6 @@ import { PotScreen } from './screen';
 
 export { warmPlanner } from './master';
 
-/** Share of the time limit kept for the final re-check and the result. */
-const RESERVE = 0.1;
-
 export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): Promise<PlannerResult> {
   const tStart = performance.now();
   validateProblem(problem);
@@ -49,8 +46,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   const m = buildModel(problem);
   const highsP: Promise<Highs | null> = deps.noSolver ? Promise.resolve(null) : loadHighs().catch(() => null);
   const budgetMs = problem.timeLimitS * 1000;
-  // Kept for the LP bound, the final re-check and the result: 10 % of the budget, at most 0.3 s + 2 %.
-  const deadline = tStart + budgetMs - Math.min(RESERVE * budgetMs, 300 + 0.02 * budgetMs);
+  const tEnd = tStart + budgetMs;
   const stats: EvaluatorStats = { sims: 0, simSteps: 0, cacheHits: 0 };
   const evals = m.cookers.map((c) => new CookerEvaluator(m, c, searchSim, stats));
 
@@ -71,8 +67,20 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     };
   }
 
+  // The whole-day trajectories without batches; their cost also sizes the time kept for the re-check.
+  const tSim = performance.now();
+  for (const e of evals) e.storeAt(e.noLoad(), e.c.n);
+  const recheckMs = 3 * (performance.now() - tSim) + 10;
   const screens = m.cookers.map((c) => new PotScreen(m, c));
   const relax = buildRelaxation(m, evals, screens);
+  // Time kept for the LP bound, the final re-check and the result (at most 40 % of the budget).
+  let triples = 0;
+  for (const pb of relax.possible) for (const pc of pb) for (const x of pc) if (x) triples++;
+  // The LP bound (bound.ts) costs ~0.1–0.3 s in HiGHS-Wasm at a few thousand variables: only when it
+  // stays under 8 % of the budget.
+  const lpMs = 30 + 0.05 * triples;
+  const runLp = lpMs < 0.08 * budgetMs;
+  const deadline = tEnd - Math.min(0.4 * budgetMs, recheckMs + (runLp ? lpMs : 0) + 20);
   for (const e of evals) e.durationHint = durationHint(m, relax, e.c.idx);
   say(`relaxation: ${stats.sims} simulations; ${relax.impossible.filter((x) => x).length} batches possible nowhere`);
 
@@ -109,6 +117,8 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   let level = 0;
   let kicks = 0;
   const maxKicks = deps.maxKicks ?? 50;
+  /** Share of small destroys among the large-neighbourhood moves (0.5 measured best of 0, 0.5, 0.8). */
+  const partialShare = 0.5;
   let best: State = { evs: st.evs.slice() };
   let lastMasterPool = 0;
   let masterRuns = 0;
@@ -125,7 +135,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     const cols = [...search.pool.values()];
     const inc = new Set(st.evs.map((ev, c) => `${c}|${ev.key}`));
     for (const [c, ev] of st.evs.entries()) search.addColumn(c, ev);
-    const res = solveMaster(highs, nC, cols, inc, Math.max(0.1, final ? Math.max(0.1, left) : left / 3));
+    const res = solveMaster(highs, nC, cols, inc, Math.max(0.02, final ? left : left / 3));
     lastMasterStatus = res?.status ?? -1;
     if (!res) return false;
     const cur = stateValue(m, st);
@@ -164,8 +174,10 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   if (atBound()) stopReason = 'bound';
   else if (performance.now() < deadline) {
     if (search.swapPass(st, 40 * nC)) stale = 0;
+    say(`swap pass: ${stateServings(m, st)} servings`);
     if (search.insertionPass(st)) stale = 0;
     tryMaster(false);
+    say(`insertion pass and master: ${stateServings(m, st)} servings`);
     const perm = (): number[] => {
       const a = m.cookers.map((c) => c.idx);
       for (let i = a.length - 1; i > 0; i--) {
@@ -224,7 +236,8 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
         const c2 = pickPartner(m, relax, st, pick[pick.length - 1] as number, rng);
         if (!pick.includes(c2)) pick.push(c2);
       }
-      const improved = search.lns(st, pick);
+      // Alternate small destroys (1–2 batches per cooker) with whole-cooker re-packs.
+      const improved = level === 0 && rng() < partialShare ? search.lnsPartial(st, pick, 1 + Math.floor(rng() * 2)) : search.lns(st, pick);
       if (improved) {
         stale = 0;
         level = 0;
@@ -247,9 +260,9 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
 
   // 5. Upper bound: the LP relaxation when HiGHS is there and the cheap bound is not met.
   let boundRes = { bound, method: exactProof ? BOUND_METHOD_EXACT : BOUND_METHOD_SIMPLE, lpStatus: null as number | null };
-  if (highs && !exactProof && stateServings(m, st) < bound - 1e-9) {
-    const left = Math.max(0.1, (tStart + budgetMs - performance.now()) / 1000 / 2);
-    boundRes = computeBound(highs, m, relax, left);
+  const lpLeftS = (tEnd - performance.now() - recheckMs - 10) / 1000;
+  if (highs && runLp && !exactProof && stateServings(m, st) < bound - 1e-9 && lpLeftS > 0.02) {
+    boundRes = computeBound(highs, m, relax, lpLeftS);
     bound = boundRes.bound;
   }
   say(`bound: ${bound} servings (${boundRes.method.slice(0, 40)}…, LP status ${boundRes.lpStatus})`);

@@ -26,7 +26,7 @@ import {
   type PModel,
 } from './model';
 import type { Relaxation } from './relaxation';
-import { newTrace, type DeltaTrace, type PotScreen } from './screen';
+import { deltaAt, newTrace, type DeltaTrace, type PotScreen } from './screen';
 import { STEP_MS } from './validate';
 
 /** Deterministic PRNG (mulberry32, Tommy Ettinger 2017): 32-bit state, uniform [0, 1). */
@@ -85,10 +85,24 @@ interface Cand {
   gen: Iterator<number, undefined>;
 }
 
+interface Ranked {
+  c: number;
+  p: number;
+  s: number;
+  maxEnd: number;
+  done: number;
+  prio: number;
+}
+
 export class Search {
   readonly pool = new Map<string, Column>();
   evalCount = 0;
   iterations = 0;
+  /** Re-pack in the large-neighbourhood search by forecast, simulating once per cooker (off: measured
+   * as accurate but no faster than simulating each insertion, and slightly worse per iteration). */
+  virtualRepair = false;
+  /** Batches the forecast placed but the simulation then rejected. */
+  virtualMisses = 0;
   /** Per cooker, the sequence of its fixed batches that work (set by the planner). */
   fixedOnly: Evaluation[] = [];
   /** Candidates forecast to fail that tryInsert still simulates (the forecast is an approximation). */
@@ -189,17 +203,9 @@ export class Search {
    * simulated best first until one works (earliest completion; ties: earlier start, smaller pot,
    * then the order of `cookers`). Returns the new evaluation, or null.
    */
-  tryInsert(st: State, b: PBatch, cookers: readonly number[], maxEvals = 0, pick?: () => number): { c: number; ev: Evaluation } | null {
-    interface Ranked {
-      c: number;
-      p: number;
-      s: number;
-      maxEnd: number;
-      done: number;
-      prio: number;
-    }
+  /** Candidate (cooker, pot, start) triples of batch b ranked by forecast completion. */
+  rank(st: State, b: PBatch, cookers: readonly number[], pick?: () => number): Ranked[] {
     const ranked: Ranked[] = [];
-    const trace = newTrace();
     let rank = 0;
     let bestDone = Infinity;
     for (const c of cookers) {
@@ -238,6 +244,12 @@ export class Search {
       const j = u < 0.15 ? 1 : u < 0.22 && ranked.length > 2 && ranked[2]?.done !== Infinity ? 2 : 0;
       if (j > 0) ranked.unshift(...ranked.splice(j, 1));
     }
+    return ranked;
+  }
+
+  tryInsert(st: State, b: PBatch, cookers: readonly number[], maxEvals = 0, pick?: () => number): { c: number; ev: Evaluation } | null {
+    const ranked = this.rank(st, b, cookers, pick);
+    const trace = newTrace();
     const limit = maxEvals > 0 ? maxEvals : 12;
     let used = 0;
     let failTries = 0;
@@ -258,7 +270,7 @@ export class Search {
       const ev = st.evs[cand.c] as Evaluation;
       const ce = this.evals[cand.c] as CookerEvaluator;
       (this.screens[cand.c] as PotScreen).run(b, cand.p, cand.s, cand.maxEnd, ce.storeUpTo(ev, ce.c.n), 'estimate', undefined, trace);
-      if (!this.othersSurvive(ev, cand.c, cand.s, trace)) {
+      if (!this.othersSurvive(ev, cand.c, cand.s, trace, undefined, undefined, { b: b.idx, p: cand.p, s: cand.s })) {
         deferred.push(cand);
         continue;
       }
@@ -282,7 +294,7 @@ export class Search {
    * Screen ('existing' mode) of the batches of `ev` that end after `s`, against the store lowered
    * by the candidate's Δ: false when one of them is forecast to fail.
    */
-  othersSurvive(ev: Evaluation, c: number, s: number, trace: DeltaTrace): boolean {
+  othersSurvive(ev: Evaluation, c: number, s: number, trace: DeltaTrace, ends?: Map<number, number>, maxEnds?: number[], newLoad?: Load): boolean {
     const ce = this.evals[c] as CookerEvaluator;
     const screen = this.screens[c] as PotScreen;
     const store = ce.storeUpTo(ev, ce.c.n);
@@ -290,10 +302,51 @@ export class Search {
       const o = ev.out[j] as LoadOut;
       if (o.endMs <= s) continue;
       const l = ev.loads[j] as Load;
-      const f = screen.run(this.m.batches[l.b] as PBatch, l.p, l.s, ev.maxEnd[j] as number, store, 'existing', undefined, undefined, trace);
+      // The deadline of a batch can shrink when the new one follows it on the same pot.
+      let maxEnd = ev.maxEnd[j] as number;
+      if (newLoad && newLoad.p === l.p && newLoad.s > l.s) maxEnd = Math.min(maxEnd, newLoad.s - this.m.turnMs);
+      if (maxEnds) maxEnd = Math.min(maxEnd, maxEnds[j] ?? maxEnd);
+      const f = screen.run(this.m.batches[l.b] as PBatch, l.p, l.s, maxEnd, store, 'existing', undefined, undefined, trace);
       if (!f.ok) return false;
+      if (ends && f.doneMs !== null) ends.set(l.b, f.doneMs);
     }
     return true;
+  }
+
+  /**
+   * Places batch b by forecast only: the best forecast (cooker, pot, start) whose batches all
+   * survive, applied to `views` (sequences whose store trajectories are simulated ones lowered by the
+   * forecast draws of the batches added since). Returns false when nothing is forecast to work.
+   */
+  insertVirtual(views: Evaluation[], b: PBatch, cookers: readonly number[], pick?: () => number): boolean {
+    const ranked = this.rank({ evs: views }, b, cookers, pick);
+    const trace = newTrace();
+    for (const cand of ranked) {
+      if (cand.done === Infinity) return false;
+      const view = views[cand.c] as Evaluation;
+      const ce = this.evals[cand.c] as CookerEvaluator;
+      const screen = this.screens[cand.c] as PotScreen;
+      const f = screen.run(b, cand.p, cand.s, cand.maxEnd, ce.storeUpTo(view, ce.c.n), 'estimate', undefined, trace);
+      const ends = new Map<number, number>();
+      const newLoad: Load = { b: b.idx, p: cand.p, s: cand.s };
+      if (!f.ok || f.doneMs === null || !this.othersSurvive(view, cand.c, cand.s, trace, ends, undefined, newLoad)) continue;
+      ends.set(b.idx, f.doneMs);
+      const loads = insertLoad(view.loads, newLoad);
+      const outBy = new Map<number, LoadOut>();
+      view.loads.forEach((l, j) => outBy.set(l.b, view.out[j] as LoadOut));
+      const out = loads.map((l) => {
+        const e = ends.get(l.b);
+        const o = outBy.get(l.b);
+        if (e !== undefined) return { reachedMs: null, doneMs: e, endMs: e, ok: true, maxPotC: Number.NaN, drawnJ: 0 };
+        return o as LoadOut;
+      });
+      const n = ce.c.n;
+      const store = view.store.slice(0, n + 1);
+      for (let i = trace.i0; i <= n; i++) store[i] = (store[i] as number) - deltaAt(trace, i);
+      views[cand.c] = { key: 'virtual', loads, maxEnd: ce.maxEnds(loads), out, ok: true, failIdx: -1, store, validTo: n, value: 0 };
+      return true;
+    }
+    return false;
   }
 
   /** Hard stop of batch b started at s on pot p of cooker c, next to the loads of `ev` [ms]. */
@@ -351,6 +404,54 @@ export class Search {
       }
     }
     return improved;
+  }
+
+  /**
+   * Small destroy-and-repair: take up to `k` random batches out of each of `cookers`, then insert the
+   * removed and the unplaced batches (most valuable first, ties random) into those cookers. Cheaper
+   * than re-packing whole cookers, so many more of these fit in the time. Accepts improvements
+   * (and equal plans now and then, to move along plateaus).
+   */
+  lnsPartial(st: State, cookers: number[], k: number): boolean {
+    this.iterations++;
+    const m = this.m;
+    const bs = m.batches;
+    const before = cookers.reduce((s, c) => s + (st.evs[c] as Evaluation).value, 0);
+    const trial: State = { evs: st.evs.slice() };
+    const pool = new Set<number>();
+    for (const c of cookers) {
+      const ev = st.evs[c] as Evaluation;
+      const movable = ev.loads.filter((l) => !(bs[l.b] as PBatch).fixed);
+      const out: Load[] = [];
+      for (let t = 0; t < k && movable.length > 0; t++) out.push(...movable.splice(Math.floor(this.rng() * movable.length), 1));
+      if (out.length === 0) continue;
+      const next = this.evaluate(c, ev.loads.filter((l) => !out.includes(l)), ev);
+      if (!next.ok) continue;
+      trial.evs[c] = next;
+      for (const l of out) pool.add(l.b);
+    }
+    for (const bi of this.unplaced(st)) if (cookers.some((c) => this.relax.possible[bi]?.[c]?.some((x) => x))) pool.add(bi);
+    const items = [...pool].sort((a, z) => a - z);
+    const noise = new Map(items.map((bi) => [bi, this.rng()]));
+    items.sort((a, z) => (bs[z] as PBatch).base * (0.85 + 0.3 * (noise.get(z) as number)) - (bs[a] as PBatch).base * (0.85 + 0.3 * (noise.get(a) as number)) || a - z);
+    const keep = this.maxFailTries;
+    this.maxFailTries = 0;
+    try {
+      for (const bi of items) {
+        if (this.timeUp()) return false;
+        const r = this.tryInsert(trial, bs[bi] as PBatch, cookers, 0, this.rng);
+        if (r) trial.evs[r.c] = r.ev;
+      }
+    } finally {
+      this.maxFailTries = keep;
+    }
+    const after = cookers.reduce((s, c) => s + (trial.evs[c] as Evaluation).value, 0);
+    for (const c of cookers) this.addColumn(c, trial.evs[c] as Evaluation);
+    if (after > before + 1e-9 || (after > before - 1e-9 && this.rng() < 0.3)) {
+      for (const c of cookers) st.evs[c] = trial.evs[c] as Evaluation;
+      return after > before + 1e-9;
+    }
+    return false;
   }
 
   /**
@@ -490,17 +591,43 @@ export class Search {
     items.sort((a, z) => (key.get(a) as number) - (key.get(z) as number) || a - z);
     const order = cookers.length > 1 && this.rng() < 0.5 ? [...cookers].reverse() : cookers;
     const randomPick = this.rng() < 0.5 ? this.rng : undefined;
-    // Repairs trust the forecast: a start it expects to fail is not simulated.
-    const keep = this.maxFailTries;
-    this.maxFailTries = 0;
-    try {
+    if (this.virtualRepair) {
+      // Re-pack by forecast alone, then simulate each cooker's new sequence once; a batch the
+      // simulation rejects is taken out again.
+      const views = trial.evs.slice();
       for (const bi of items) {
         if (this.timeUp()) return false;
-        const r = this.tryInsert(trial, bs[bi] as PBatch, order, 0, randomPick);
-        if (r) trial.evs[r.c] = r.ev;
+        this.insertVirtual(views, bs[bi] as PBatch, order, randomPick);
       }
-    } finally {
-      this.maxFailTries = keep;
+      for (const c of cookers) {
+        const base = trial.evs[c] as Evaluation;
+        let loads = (views[c] as Evaluation).loads;
+        let ev = this.evaluate(c, loads, base);
+        while (!ev.ok) {
+          const bad = loads[ev.failIdx] as Load;
+          if ((bs[bad.b] as PBatch).fixed) {
+            ev = base;
+            break;
+          }
+          this.virtualMisses++;
+          loads = loads.filter((l) => l !== bad);
+          ev = this.evaluate(c, loads, base);
+        }
+        trial.evs[c] = ev;
+      }
+    } else {
+      // Repairs trust the forecast: a start it expects to fail is not simulated.
+      const keep = this.maxFailTries;
+      this.maxFailTries = 0;
+      try {
+        for (const bi of items) {
+          if (this.timeUp()) return false;
+          const r = this.tryInsert(trial, bs[bi] as PBatch, order, 0, randomPick);
+          if (r) trial.evs[r.c] = r.ev;
+        }
+      } finally {
+        this.maxFailTries = keep;
+      }
     }
     const after = cookers.reduce((s, c) => s + (trial.evs[c] as Evaluation).value, 0);
     for (const c of cookers) this.addColumn(c, trial.evs[c] as Evaluation);
