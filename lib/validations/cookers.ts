@@ -77,7 +77,11 @@ function refineCooker(v: Partial<z.infer<typeof cookerBaseSchema>>, ctx: z.Refin
 }
 
 export const createCookerSchema = cookerBaseSchema.superRefine(refineCooker);
-export const updateCookerSchema = cookerFieldChecks.partial().superRefine(refineCooker);
+export const updateCookerSchema = cookerFieldChecks
+  .partial()
+  .superRefine(refineCooker)
+  .refine((v) => Object.keys(v).length > 0, { message: 'Send at least one field to change.' })
+  .meta({ minProperties: 1 });
 export type CookerInput = z.infer<typeof createCookerSchema>;
 
 export const customMediumSchema = z.strictObject({

@@ -45,7 +45,9 @@ export const createDishSchema = z.strictObject(dishFields).superRefine(refineDis
  */
 export const updateDishSchema = z
   .strictObject(Object.fromEntries(Object.entries(dishFieldChecks).map(([k, v]) => [k, v.optional()])) as { [K in keyof typeof dishFieldChecks]: z.ZodOptional<(typeof dishFieldChecks)[K]> })
-  .superRefine(refineDish);
+  .superRefine(refineDish)
+  .refine((v) => Object.keys(v).length > 0, { message: 'Send at least one field to change.' })
+  .meta({ minProperties: 1 });
 export type DishInput = z.infer<typeof createDishSchema>;
 
 /** CSV columns of the dish import/export, in order (our own header; documented in the UI). */

@@ -54,9 +54,11 @@ describe('planning a day', () => {
     await page.getByText(/^Refused: /).waitFor({ timeout: 15_000 });
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'lead-plan-refused.png'), fullPage: false });
 
-    await page.getByRole('button', { name: 'Publish' }).click();
-    await page.getByText(/Published version \d+/).first().waitFor();
-    expect(await page.getByRole('button', { name: 'Publish' }).count()).toBe(0);
+    await page.getByRole('button', { name: 'Publish', exact: true }).click();
+    await page.getByRole('status').filter({ hasText: /Published version \d+/ }).waitFor();
+    // A published version cannot change: its Publish button goes away once the page has reloaded the plan.
+    await page.getByRole('button', { name: 'Publish', exact: true }).waitFor({ state: 'detached' });
+    expect(await page.getByRole('button', { name: 'Publish', exact: true }).count()).toBe(0);
     await page.close();
   });
 
