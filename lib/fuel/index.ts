@@ -2,3 +2,4 @@
 export * from './factors';
 export * from './energy';
 export * from './backup';
+export * from './plan';

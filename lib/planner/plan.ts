@@ -1,21 +1,32 @@
 /**
  * planDay: packs a day's batches onto stored-heat solar cookers.
  *
- * Method (structure first: batches on different cookers do not interact, each cooker has its own store):
- *  1. single-batch relaxations with the simulator (relaxation.ts): where each batch could run alone,
- *     its quickest pot occupation, energy bounds — used to prune candidates and to explain backups;
- *  2. greedy: batches by serve-by, each at the earliest feasible (cooker, pot, grid start), checked by
- *     simulating the receiving cooker only (search.ts);
- *  3. local search on per-cooker sequences — swap, shift, and large-neighbourhood destroy-and-repair of
- *     one or two cookers — every feasible sequence becoming a column;
- *  4. a set-packing master over all columns solved by HiGHS (master.ts), warm-started with the
- *     incumbent, alternating with 3 until the time limit or until nothing improves;
- *  5. an upper bound from an LP relaxation (bound.ts) and the gap;
- *  6. a final re-check: every cooker's sequence simulated in full from the initial state; a batch
- *     that fails is moved (another start or pot on its cooker) or sent to backup ('failed-recheck').
- * The plan never scores below the greedy one (both the search and the master only accept improvements).
- * Deterministic for the same inputs as long as the time limit does not cut the search
- * (deps.maxIterations makes it independent of machine speed).
+ * Why not one big time-indexed MILP: with the store energy linearised and big-M store constraints, a
+ * naive model of 6 cookers × 30 batches × 64 quarter-hours still had a 29 % gap after 60 s, and at
+ * 12 × 60 × 72 it did worse than a greedy (measured in the project before this module). The structure is used instead:
+ * batches on different cookers do not interact (each cooker has its own store), so a plan is one
+ * simulated sequence per cooker, and HiGHS only recombines such sequences.
+ *
+ *  1. relaxations (relaxation.ts): where each batch could run alone, its quickest pot occupation and
+ *     energy bounds — to prune candidates, explain backups and bound the optimum;
+ *  2. greedy (search.ts): batches by serve-by, each at the (cooker, pot, grid start) the pot screen
+ *     (screen.ts) forecasts to finish first, verified by simulating the receiving cooker only;
+ *  3. small instances: every subset of batches on every cooker decided exactly (exact.ts);
+ *  4. local search: swap and insertion passes, large-neighbourhood destroy-and-repair (one to a few
+ *     cookers re-packed, or 1–2 batches per cooker taken out and re-inserted), kicks from the best
+ *     plan when it stalls (iterated local search), a final pass moving batches later to wait less;
+ *     every feasible sequence met becomes a column;
+ *  5. a set-packing master over all columns solved by HiGHS (master.ts), warm-started with the
+ *     incumbent, run every few iterations (less often while it finds nothing);
+ *  6. an upper bound (bound.ts: exact when 3 completed, else an LP relaxation or, when that is too
+ *     slow for the budget, the sum of servings of batches feasible alone) and the gap;
+ *  7. a final re-check: every cooker's sequence simulated in full from its initial state with the
+ *     full simulator; a batch that fails is moved (another start or pot on its cooker) or sent to
+ *     backup ('failed-recheck') with a sentence saying why.
+ * The plan never scores below the greedy one (moves and the master only replace the plan with a
+ * better one; the best plan is kept across kicks). Deterministic for the same inputs as long as the
+ * time limit does not cut the search (deps.maxIterations makes it independent of machine speed).
+ * The greedy always completes, so under heavy CPU contention the time limit can be exceeded.
  */
 import type { Highs } from 'highs';
 import { buildModel, ceilToGrid, CookerEvaluator, nextShiftStart, shiftEndAt, type Evaluation, type EvaluatorStats, type Load, type LoadOut, type PBatch, type PModel } from './model';
@@ -88,7 +99,9 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   const failedFixed = new Map<number, string>();
   const st: State = { evs: evals.map((e) => dropFailing(m, e, e.fixedLoads(), failedFixed, (ev) => e.evaluate(ev))) };
   const rng = mulberry32(problem.seed ?? 1);
-  const search = new Search(m, evals, relax, screens, rng, deadline);
+  // The last 5 % before the deadline go to moving batches later (less waiting before serving).
+  const searchDeadline = deadline - 0.05 * budgetMs;
+  const search = new Search(m, evals, relax, screens, rng, searchDeadline);
 
   const fixedOnly: State = { evs: st.evs.slice() };
   search.fixedOnly = fixedOnly.evs;
@@ -253,9 +266,10 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
       }
     }
     if (stateValue(m, best) > stateValue(m, st) + 1e-9) st.evs = best.evs.slice();
-    if (!search.timeUp()) search.shiftPass(st, 30 * nC);
     tryMaster(true);
   }
+  search.deadline = deadline;
+  if (!search.timeUp() && search.shiftPass(st, 30 * nC)) say(`shift pass: objective ${stateValue(m, st).toFixed(4)}`);
   say(`search: ${search.iterations} iterations, ${masterRuns} master solves, ${search.pool.size} columns, stop: ${stopReason}`);
 
   // 5. Upper bound: the LP relaxation when HiGHS is there and the cheap bound is not met.

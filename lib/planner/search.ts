@@ -113,7 +113,7 @@ export class Search {
     readonly relax: Relaxation,
     readonly screens: PotScreen[],
     readonly rng: () => number,
-    readonly deadline: number,
+    public deadline: number,
     readonly maxPool = 40_000,
   ) {}
 
