@@ -96,7 +96,9 @@ describe('cooker register', () => {
     expect(r.json.balance.relativeError).toBeLessThan(1e-3);
     // Night: no sun on the aperture at local midnight (the kitchen is at 12° N in UTC+0).
     expect(r.json.series.gApertureWm2[0]).toBe(0);
-    expect(Math.max(...r.json.series.gApertureWm2)).toBeGreaterThan(400);
+    // Daytime sun on the aperture: clear sky × the kitchen's default December clearness (no forecast stored).
+    expect(Math.max(...r.json.series.gApertureWm2)).toBeGreaterThan(200);
+    expect(r.json.source).toBe('clear-sky');
     const bad = await c.cookA!.get(`${base()}/${cookerId}/prediction?date=10-12-2026`);
     expect(bad.status).toBe(422);
     expect(bad.json.error.fields).toHaveProperty('date');

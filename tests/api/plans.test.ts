@@ -43,6 +43,10 @@ beforeAll(async () => {
   for (const who of ['coordinator', 'leadA', 'cookA', 'leadB'] as const) c[who] = await new Client().signIn(w.emails[who], PASSWORD);
   await addDemoCookers(w.kitchenA);
   dish = await addDishLibrary(w.org, DISHES);
+  // A clear sky all year (no forecast is stored for this kitchen, so the plan uses the clear-sky
+  // fallback): the numbers below assume the full clear-sky irradiance, not a monthly clearness.
+  const clear = await c.coordinator!.patch(`/api/v1/kitchens/${w.kitchenA.id}`, { clearness: Array<number>(12).fill(1) });
+  if (clear.status !== 200) throw new Error(`clearness: ${clear.status} ${clear.text}`);
   const settings = await c.leadA!.request('PUT', `/api/v1/kitchens/${w.kitchenA.id}/planning-settings`, {
     shiftStart: '06:00',
     shiftEnd: '19:00',

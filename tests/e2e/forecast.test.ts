@@ -43,7 +43,8 @@ describe('forecast page', () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, 'lead.baobab@example.org');
     await page.goto(`${baseUrl}/kitchens/${kitchenId}`);
-    await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: 'Forecast' }).click();
+    // The kitchen's tabs carry its sections (the navigation is named after the kitchen).
+    await page.getByRole('navigation', { name: 'Baobab Ridge School Kitchen' }).getByRole('link', { name: 'Forecast' }).click();
     await page.getByRole('heading', { name: 'Forecast', level: 1 }).waitFor();
     await page.locator('canvas').waitFor();
     const days = page.locator('section', { hasText: 'Weather in use' }).locator('li');

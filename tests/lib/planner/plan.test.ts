@@ -193,6 +193,16 @@ describe('determinism, greedy floor, re-planning', () => {
   });
 });
 
+describe('stratified stores', () => {
+  it('a 4-layer store: the search restarts approximately, the re-check keeps the plan valid', async () => {
+    const p = makeSmall(12, 5);
+    for (const c of p.cookers) c.spec.store.nodes = 4;
+    const r = await planDay(p);
+    expect(planViolations(p, r)).toEqual([]);
+    expect(r.servingsOnSun).toBeGreaterThan(0);
+  });
+});
+
 describe('dependency injection', () => {
   it('uses the simulator it is given (stub) for search and re-check', async () => {
     let calls = 0;
