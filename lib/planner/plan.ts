@@ -344,6 +344,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   if (gap <= 1e-9) status = 'optimal';
   else if (search.iterations === 0 && masterRuns === 0) status = 'greedy-only';
   else if (stopReason === 'time') status = 'time-limit';
+  else if (stopReason === 'iterations') status = 'iteration-limit';
   else status = 'converged';
   say(`final: ${servingsOnSun} servings, bound ${upperBound}, gap ${(gap * 100).toFixed(2)} %, ${stats.sims} simulations (${stats.simSteps} steps), ${backup.length} backup`);
   return {

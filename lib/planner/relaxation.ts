@@ -190,7 +190,10 @@ export function buildRelaxation(m: PModel, evals: CookerEvaluator[], screens: Po
     if (some || (b.fixed && b.fixed.done)) impossible.push(null);
     else if (!anyFit) {
       const largest = Math.max(0, ...m.cookers.flatMap((c) => c.pots.map((p) => p.volumeL)));
-      impossible.push({ reason: 'pot-too-small', detail: `this batch needs a ${r.potVolumeNeededL} L pot; the largest pot is ${largest} L` });
+      impossible.push({
+        reason: 'pot-too-small',
+        detail: largest > 0 ? `this batch needs a ${r.potVolumeNeededL} L pot; the largest pot is ${largest} L` : 'there is no cooker with a pot in this plan',
+      });
     } else if (!anyShift) {
       impossible.push({
         reason: 'outside-shift',

@@ -111,6 +111,8 @@ export type PlannerStatus =
   | 'time-limit'
   /** The search ended (no neighbourhood improved any more) before the time limit, with a gap left. */
   | 'converged'
+  /** The search stopped at deps.maxIterations with a gap left. */
+  | 'iteration-limit'
   /** Only the greedy placement ran (the time budget or the solver was not available). */
   | 'greedy-only'
   /** Nothing to plan. */
