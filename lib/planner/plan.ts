@@ -35,7 +35,7 @@ import { BOUND_METHOD_EXACT, BOUND_METHOD_SIMPLE, computeBound } from './bound';
 import { enumerateExact } from './exact';
 import { buildRelaxation, type Relaxation } from './relaxation';
 import { mulberry32, placedOf, Search, stateServings, stateValue, type State } from './search';
-import type { BackupBatch, PlannedSlot, PlannerDeps, PlannerProblem, PlannerResult, PlannerStatus, SimulateFn } from './types';
+import type { BackupBatch, PlannerDeps, PlannerProblem, PlannerResult, PlannerStatus, SimulateFn } from './types';
 import { STEP_MS, validateProblem } from './validate';
 import { buildSlots, failureDetail } from './report';
 import { getDefaultSimulate } from './simulator';
@@ -159,7 +159,11 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     // Columns are disjoint, but a fallback to the old sequence could duplicate a batch: check.
     const seen = new Set<number>();
     let clash = false;
-    for (const ev of trial.evs) for (const l of ev.loads) (seen.has(l.b) ? (clash = true) : seen.add(l.b));
+    for (const ev of trial.evs)
+      for (const l of ev.loads) {
+        if (seen.has(l.b)) clash = true;
+        seen.add(l.b);
+      }
     if (clash || stateValue(m, trial) <= cur + 1e-9) return false;
     st.evs = trial.evs;
     say(`master: ${cols.length} columns → objective ${stateValue(m, st).toFixed(4)}`);
@@ -363,9 +367,6 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   };
 }
 
-function round2(x: number): number {
-  return Math.round(x * 100) / 100;
-}
 function round6(x: number): number {
   return Math.round(x * 1e6) / 1e6;
 }

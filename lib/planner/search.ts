@@ -26,7 +26,7 @@ import {
   type PModel,
 } from './model';
 import type { Relaxation } from './relaxation';
-import { deltaAt, newTrace, type DeltaTrace, type PotScreen } from './screen';
+import { newTrace, type DeltaTrace, type PotScreen } from './screen';
 import { STEP_MS } from './validate';
 
 /** Deterministic PRNG (mulberry32, Tommy Ettinger 2017): 32-bit state, uniform [0, 1). */
@@ -77,14 +77,6 @@ export function placedOf(m: PModel, s: State): Int32Array {
   return where;
 }
 
-interface Cand {
-  c: number;
-  p: number;
-  s: number;
-  prio: number;
-  gen: Iterator<number, undefined>;
-}
-
 interface Ranked {
   c: number;
   p: number;
@@ -98,11 +90,6 @@ export class Search {
   readonly pool = new Map<string, Column>();
   evalCount = 0;
   iterations = 0;
-  /** Re-pack in the large-neighbourhood search by forecast, simulating once per cooker (off: measured
-   * as accurate but no faster than simulating each insertion, and slightly worse per iteration). */
-  virtualRepair = false;
-  /** Batches the forecast placed but the simulation then rejected. */
-  virtualMisses = 0;
   /** Per cooker, the sequence of its fixed batches that work (set by the planner). */
   fixedOnly: Evaluation[] = [];
   /** Candidates forecast to fail that tryInsert still simulates (the forecast is an approximation). */
@@ -311,42 +298,6 @@ export class Search {
       if (ends && f.doneMs !== null) ends.set(l.b, f.doneMs);
     }
     return true;
-  }
-
-  /**
-   * Places batch b by forecast only: the best forecast (cooker, pot, start) whose batches all
-   * survive, applied to `views` (sequences whose store trajectories are simulated ones lowered by the
-   * forecast draws of the batches added since). Returns false when nothing is forecast to work.
-   */
-  insertVirtual(views: Evaluation[], b: PBatch, cookers: readonly number[], pick?: () => number): boolean {
-    const ranked = this.rank({ evs: views }, b, cookers, pick);
-    const trace = newTrace();
-    for (const cand of ranked) {
-      if (cand.done === Infinity) return false;
-      const view = views[cand.c] as Evaluation;
-      const ce = this.evals[cand.c] as CookerEvaluator;
-      const screen = this.screens[cand.c] as PotScreen;
-      const f = screen.run(b, cand.p, cand.s, cand.maxEnd, ce.storeUpTo(view, ce.c.n), 'estimate', undefined, trace);
-      const ends = new Map<number, number>();
-      const newLoad: Load = { b: b.idx, p: cand.p, s: cand.s };
-      if (!f.ok || f.doneMs === null || !this.othersSurvive(view, cand.c, cand.s, trace, ends, undefined, newLoad)) continue;
-      ends.set(b.idx, f.doneMs);
-      const loads = insertLoad(view.loads, newLoad);
-      const outBy = new Map<number, LoadOut>();
-      view.loads.forEach((l, j) => outBy.set(l.b, view.out[j] as LoadOut));
-      const out = loads.map((l) => {
-        const e = ends.get(l.b);
-        const o = outBy.get(l.b);
-        if (e !== undefined) return { reachedMs: null, doneMs: e, endMs: e, ok: true, maxPotC: Number.NaN, drawnJ: 0 };
-        return o as LoadOut;
-      });
-      const n = ce.c.n;
-      const store = view.store.slice(0, n + 1);
-      for (let i = trace.i0; i <= n; i++) store[i] = (store[i] as number) - deltaAt(trace, i);
-      views[cand.c] = { key: 'virtual', loads, maxEnd: ce.maxEnds(loads), out, ok: true, failIdx: -1, store, validTo: n, value: 0 };
-      return true;
-    }
-    return false;
   }
 
   /** Hard stop of batch b started at s on pot p of cooker c, next to the loads of `ev` [ms]. */
@@ -591,43 +542,17 @@ export class Search {
     items.sort((a, z) => (key.get(a) as number) - (key.get(z) as number) || a - z);
     const order = cookers.length > 1 && this.rng() < 0.5 ? [...cookers].reverse() : cookers;
     const randomPick = this.rng() < 0.5 ? this.rng : undefined;
-    if (this.virtualRepair) {
-      // Re-pack by forecast alone, then simulate each cooker's new sequence once; a batch the
-      // simulation rejects is taken out again.
-      const views = trial.evs.slice();
+    // Repairs trust the forecast: a start it expects to fail is not simulated.
+    const keep = this.maxFailTries;
+    this.maxFailTries = 0;
+    try {
       for (const bi of items) {
         if (this.timeUp()) return false;
-        this.insertVirtual(views, bs[bi] as PBatch, order, randomPick);
+        const r = this.tryInsert(trial, bs[bi] as PBatch, order, 0, randomPick);
+        if (r) trial.evs[r.c] = r.ev;
       }
-      for (const c of cookers) {
-        const base = trial.evs[c] as Evaluation;
-        let loads = (views[c] as Evaluation).loads;
-        let ev = this.evaluate(c, loads, base);
-        while (!ev.ok) {
-          const bad = loads[ev.failIdx] as Load;
-          if ((bs[bad.b] as PBatch).fixed) {
-            ev = base;
-            break;
-          }
-          this.virtualMisses++;
-          loads = loads.filter((l) => l !== bad);
-          ev = this.evaluate(c, loads, base);
-        }
-        trial.evs[c] = ev;
-      }
-    } else {
-      // Repairs trust the forecast: a start it expects to fail is not simulated.
-      const keep = this.maxFailTries;
-      this.maxFailTries = 0;
-      try {
-        for (const bi of items) {
-          if (this.timeUp()) return false;
-          const r = this.tryInsert(trial, bs[bi] as PBatch, order, 0, randomPick);
-          if (r) trial.evs[r.c] = r.ev;
-        }
-      } finally {
-        this.maxFailTries = keep;
-      }
+    } finally {
+      this.maxFailTries = keep;
     }
     const after = cookers.reduce((s, c) => s + (trial.evs[c] as Evaluation).value, 0);
     for (const c of cookers) this.addColumn(c, trial.evs[c] as Evaluation);
