@@ -136,6 +136,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   let lastMasterPool = 0;
   let masterRuns = 0;
   let lastMasterStatus = -1;
+  let masterMs = 0;
   function atBoundNow(): boolean {
     return stateServings(m, st) >= bound - 1e-9;
   }
@@ -148,8 +149,11 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     const cols = [...search.pool.values()];
     const inc = new Set(st.evs.map((ev, c) => `${c}|${ev.key}`));
     for (const [c, ev] of st.evs.entries()) search.addColumn(c, ev);
-    const res = solveMaster(highs, nC, cols, inc, Math.max(0.02, final ? left : left / 3));
+    const tM = performance.now();
+    // Intermediate masters get at most 5 % of the budget; HiGHS returns its best (≥ the warm start) at the limit.
+    const res = solveMaster(highs, nC, cols, inc, Math.max(0.02, final ? left : Math.min(left / 3, 0.05 * problem.timeLimitS)));
     lastMasterStatus = res?.status ?? -1;
+    masterMs += performance.now() - tM;
     if (!res) return false;
     const cur = stateValue(m, st);
     if (res.objective <= cur + 1e-7) return false;
@@ -258,7 +262,10 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
       if (improved) {
         stale = 0;
         level = 0;
-        if (stateValue(m, st) > stateValue(m, best) + 1e-9) best = { evs: st.evs.slice() };
+        if (stateValue(m, st) > stateValue(m, best) + 1e-9) {
+          if (stateServings(m, st) > stateServings(m, best)) say(`best: ${stateServings(m, st)} servings (iteration ${search.iterations})`);
+          best = { evs: st.evs.slice() };
+        }
       } else stale++;
       if (search.iterations >= nextMaster) {
         if (tryMaster(false)) {
@@ -274,7 +281,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   }
   search.deadline = deadline;
   if (!search.timeUp() && search.shiftPass(st, 30 * nC)) say(`shift pass: objective ${stateValue(m, st).toFixed(4)}`);
-  say(`search: ${search.iterations} iterations, ${masterRuns} master solves, ${search.pool.size} columns, stop: ${stopReason}`);
+  say(`search: ${search.iterations} iterations, ${masterRuns} master solves (${Math.round(masterMs)} ms), ${search.pool.size} columns, stop: ${stopReason}`);
 
   // 5. Upper bound: the LP relaxation when HiGHS is there and the cheap bound is not met.
   let boundRes = { bound, method: exactProof ? BOUND_METHOD_EXACT : BOUND_METHOD_SIMPLE, lpStatus: null as number | null };

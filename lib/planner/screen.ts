@@ -30,6 +30,8 @@ export interface ScreenResult {
   ok: boolean;
   reachedMs: number | null;
   doneMs: number | null;
+  /** Stopped at the caller's cutoff, outcome unknown (not done before it). */
+  cutoff?: boolean;
 }
 
 export class PotScreen {
@@ -81,8 +83,9 @@ export class PotScreen {
     tAirOverrideC?: number,
     trace?: DeltaTrace,
     minus?: DeltaTrace,
+    cutoffMs = Infinity,
   ): ScreenResult {
-    return this.compute(b, p, s, maxEnd, store, mode, tAirOverrideC, trace, minus);
+    return this.compute(b, p, s, maxEnd, store, mode, tAirOverrideC, trace, minus, cutoffMs);
   }
 
   private readonly suffix = new WeakMap<Float64Array, Float64Array>();
@@ -113,6 +116,7 @@ export class PotScreen {
     tAirOverrideC?: number,
     trace?: DeltaTrace,
     minus?: DeltaTrace,
+    cutoffMs = Infinity,
   ): ScreenResult {
     const c = this.c;
     const spec = c.raw.spec;
@@ -169,6 +173,8 @@ export class PotScreen {
       }
       // Early exits (exact for the screen): no time left to complete the hold, or the pot is below
       // the minimum and no store temperature ahead reaches it.
+      // Past the cutoff the caller only needs to know the batch is not done earlier.
+      if (tMs > cutoffMs) return { ok: true, reachedMs: reached, doneMs: null, cutoff: true };
       let early = false;
       if (hold !== hold && (iEnd - i) * STEP_MS < holdMs) early = true;
       else if (tp < minT && sufMax !== null && (sufMax[i] as number) < minT) early = true;

@@ -215,8 +215,10 @@ export class Search {
           if (s + dmin > bestDone + 2 * this.m.slotMs) break;
           k++;
           const maxEnd = this.maxEndFor(ev, b, c, pot.idx, s);
-          const f = screen.run(b, pot.idx, s, maxEnd, store, 'estimate');
-          const done = f.ok && f.doneMs !== null ? f.doneMs : Infinity;
+          const cutoff = bestDone + 2 * this.m.slotMs;
+          const f = screen.run(b, pot.idx, s, maxEnd, store, 'estimate', undefined, undefined, undefined, cutoff);
+          // Cut off: not better than the best so far; ranked just after it, outcome left to the simulation.
+          const done = f.cutoff ? cutoff + 1 : f.ok && f.doneMs !== null ? f.doneMs : Infinity;
           if (done < bestDone) bestDone = done;
           ranked.push({ c, p: pot.idx, s, maxEnd, done, prio });
           // Forecast the first starts one by one, then thin out (stride 2, then 4 slots).
