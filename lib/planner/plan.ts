@@ -30,7 +30,7 @@
  */
 import type { Highs } from 'highs';
 import { buildModel, ceilToGrid, CookerEvaluator, nextShiftStart, shiftEndAt, type Evaluation, type EvaluatorStats, type Load, type LoadOut, type PBatch, type PModel } from './model';
-import { loadHighs, solveMaster } from './master';
+import { loadHighs, solveMaster, warmPlanner as warmHighs } from './master';
 import { BOUND_METHOD_EXACT, BOUND_METHOD_SIMPLE, computeBound } from './bound';
 import { enumerateExact } from './exact';
 import { buildRelaxation, type Relaxation } from './relaxation';
@@ -41,7 +41,55 @@ import { buildSlots, failureDetail } from './report';
 import { getDefaultSimulate } from './simulator';
 import { PotScreen } from './screen';
 
-export { warmPlanner } from './master';
+/**
+ * Loads HiGHS once for the process and runs a tiny plan, so that the Wasm solver and the
+ * simulator and search code are compiled before the first real plan (first plans in a fresh process
+ * are otherwise markedly slower).
+ */
+export async function warmPlanner(): Promise<void> {
+  await warmHighs();
+  const t0 = Date.UTC(2024, 0, 1, 8);
+  const weather = Array.from({ length: 360 }, (_, i) => ({ t: t0 + i * 60_000, gApertureWm2: 800, tAirC: 30 }));
+  const batch = (id: string, h: number) => ({
+    id,
+    dishId: 'warm-up',
+    dishName: 'Warm-up',
+    servings: 10,
+    method: 'simmer' as const,
+    potVolumeNeededL: 5,
+    foodKg: 3,
+    foodCpJPerKgK: 3000,
+    waterKg: 2,
+    minTempC: 85,
+    holdS: 600,
+    lidOn: true,
+    earliestStartMs: t0 + h * 3600_000,
+    serveByMs: t0 + (h + 2) * 3600_000,
+  });
+  await planDay(
+    {
+      cookers: [
+        {
+          id: 'warm-up',
+          name: 'Warm-up',
+          spec: {
+            collector: { model: 'lumped', apertureM2: 2, eta0: 0.6, uLossWPerK: 3 },
+            store: { mediumId: 'sunflower-oil', massKg: 60, uaLossWPerK: 1.5, maxSafeTempC: 200, minUsefulTempC: 100 },
+            pots: [{ id: 'p', volumeL: 10, massKg: 1.2, cpJPerKgK: 900, coupling: { kind: 'constant', uaWPerK: 40 }, lidAreaM2: 0.03, lidUWPerM2K: 8 }],
+          },
+          weather,
+          initialStoreTempC: 120,
+        },
+      ],
+      batches: [batch('a', 0), batch('b', 1), batch('c', 2), batch('d', 3)],
+      shifts: [{ startMs: t0, endMs: t0 + 6 * 3600_000 }],
+      turnaroundS: 300,
+      altitudeM: 0,
+      timeLimitS: 0.4,
+    },
+    { maxExactEvaluations: 0 },
+  );
+}
 
 export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): Promise<PlannerResult> {
   const tStart = performance.now();
