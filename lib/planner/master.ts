@@ -6,10 +6,15 @@
  * module variable; warmPlanner() loads it and runs a tiny model so the first real plan is fast.
  * Its heap is capped at 2 GiB: every model is disposed right after its solve.
  *
- * The master problem is a set packing over per-cooker sequence columns:
- *   maximise Σ_k v_k·y_k  s.t.  Σ_{k of cooker c} y_k ≤ 1 (each cooker),
- *                                Σ_{k ∋ batch b} y_k ≤ 1 (each batch),  y_k ∈ {0, 1},
- * where every column is a sequence the simulator found feasible and v_k its objective value.
+ * The master problem chooses at most one simulated sequence (column) per cooker and, from it, any
+ * subset of its batches — taking batches out of a feasible sequence keeps it feasible (less heat is
+ * drawn, no deadline gets shorter), so every subset of a column is a column too:
+ *   maximise Σ_{k,b∈k} v_bk·z_bk
+ *   s.t. Σ_{k of cooker c} y_k ≤ 1 (each cooker),  Σ_{k∋b} z_bk ≤ 1 (each batch),  z_bk ≤ y_k,
+ *        y_k ∈ {0, 1}, 0 ≤ z_bk ≤ 1
+ * with v_bk the batch's objective value in sequence k (its completion time there; a subset finishes
+ * no later, so this only errs on the tie-break). For fixed y the z-part is a bipartite assignment, so
+ * z is integral at a vertex and needs no integrality.
  */
 import type { Highs, ModelData } from 'highs';
 import type { Column } from './search';
@@ -98,21 +103,43 @@ export function solveMaster(h: Highs, nCookers: number, columns: readonly Column
   if (columns.length === 0) return null;
   const batchRow = new Map<number, number>();
   for (const col of columns) for (const b of col.batches) if (!batchRow.has(b)) batchRow.set(b, nCookers + batchRow.size);
-  const numRows = nCookers + batchRow.size;
+  const nY = columns.length;
+  const nZ = columns.reduce((s, c) => s + c.batches.length, 0);
+  const linkRow0 = nCookers + batchRow.size;
+  const numRows = linkRow0 + nZ;
+  const n = nY + nZ;
+  // CSC: y_k has the cooker row and −1 in each of its link rows; z_bk has its batch row and +1 in its link row.
   const starts: number[] = [0];
   const indices: number[] = [];
   const values: number[] = [];
   const cost: number[] = [];
+  const integrality: (0 | 1)[] = [];
+  let link = linkRow0;
+  const firstLink: number[] = [];
   for (const col of columns) {
-    const rows = [col.c, ...col.batches.map((b) => batchRow.get(b) as number)].sort((a, z) => a - z);
-    for (const r of rows) {
-      indices.push(r);
-      values.push(1);
+    firstLink.push(link);
+    indices.push(col.c);
+    values.push(1);
+    for (let j = 0; j < col.batches.length; j++) {
+      indices.push(link + j);
+      values.push(-1);
     }
+    link += col.batches.length;
     starts.push(indices.length);
-    cost.push(col.value);
+    cost.push(0);
+    integrality.push(1);
   }
-  const n = columns.length;
+  columns.forEach((col, k) => {
+    col.batches.forEach((b, j) => {
+      indices.push(batchRow.get(b) as number, (firstLink[k] as number) + j);
+      values.push(1, 1);
+      starts.push(indices.length);
+      cost.push(col.values[j] as number);
+      integrality.push(0);
+    });
+  });
+  const rowUpper = new Array<number>(numRows).fill(1);
+  for (let r = linkRow0; r < numRows; r++) rowUpper[r] = 0;
   const data: ModelData = {
     numCols: n,
     numRows,
@@ -121,16 +148,31 @@ export function solveMaster(h: Highs, nCookers: number, columns: readonly Column
     colLower: new Array<number>(n).fill(0),
     colUpper: new Array<number>(n).fill(1),
     rowLower: new Array<number>(numRows).fill(-h.infinity),
-    rowUpper: new Array<number>(numRows).fill(1),
+    rowUpper,
     matrix: { format: 'csc', numRows, numCols: n, starts, indices, values },
-    integrality: new Array<0 | 1>(n).fill(1),
+    integrality,
   };
-  const start = columns.map((c) => (incumbent.has(c.key) ? 1 : 0));
+  const start: number[] = columns.map((c) => (incumbent.has(c.key) ? 1 : 0));
+  columns.forEach((col, k) => col.batches.forEach(() => start.push(start[k] as number)));
   const out = solveModel(h, data, timeLimitS, start);
   if (!out.x) return null;
   const chosen: Column[] = [];
-  out.x.forEach((v, k) => {
-    if (v > 0.5) chosen.push(columns[k] as Column);
+  let z = nY;
+  columns.forEach((col, k) => {
+    const use = (out.x as Float64Array)[k] as number;
+    const keep: number[] = [];
+    const keepVals: number[] = [];
+    col.batches.forEach((b, j) => {
+      if (use > 0.5 && ((out.x as Float64Array)[z] as number) > 0.5) {
+        keep.push(b);
+        keepVals.push(col.values[j] as number);
+      }
+      z++;
+    });
+    if (use <= 0.5) return;
+    const keepSet = new Set(keep);
+    const fixedOrKept = col.loads.filter((l) => keepSet.has(l.b) || !col.batches.includes(l.b));
+    chosen.push({ c: col.c, loads: fixedOrKept, value: keepVals.reduce((a, v) => a + v, 0), batches: keep, values: keepVals, key: col.key });
   });
   return { chosen, objective: out.objective, status: out.status };
 }

@@ -204,7 +204,9 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     masterMs += performance.now() - tM;
     if (!res) return false;
     const cur = stateValue(m, st);
-    if (res.objective <= cur + 1e-7) return false;
+    // The master counts the movable batches only; fixed and finished batches are the same in every plan.
+    const constant = m.doneValue + fixedOnly.evs.reduce((a, ev) => a + ev.value, 0);
+    if (res.objective + constant <= cur + 1e-7) return false;
     const next: Evaluation[] = fixedOnly.evs.slice();
     for (const col of res.chosen) next[col.c] = (evals[col.c] as CookerEvaluator).evaluate(col.loads);
     const trial: State = { evs: next.map((ev, c) => (ev.ok ? ev : (st.evs[c] as Evaluation))) };

@@ -15,6 +15,7 @@ import {
   ceilToGrid,
   compareLoads,
   insertLoad,
+  loadValue,
   nextShiftStart,
   removeBatch,
   shiftEndAt,
@@ -45,8 +46,9 @@ export interface Column {
   c: number;
   loads: Load[];
   value: number;
-  /** Non-fixed batches the column serves. */
+  /** Non-fixed batches the column serves, and each one's objective value in this sequence. */
   batches: number[];
+  values: number[];
   key: string;
 }
 
@@ -113,8 +115,14 @@ export class Search {
     const key = `${c}|${ev.key}`;
     if (this.pool.has(key) || this.pool.size >= this.maxPool) return;
     const batches: number[] = [];
-    for (const l of ev.loads) if (!(this.m.batches[l.b] as PBatch).fixed) batches.push(l.b);
-    this.pool.set(key, { c, loads: ev.loads, value: ev.value, batches, key });
+    const values: number[] = [];
+    ev.loads.forEach((l, j) => {
+      const b = this.m.batches[l.b] as PBatch;
+      if (b.fixed) return;
+      batches.push(l.b);
+      values.push(loadValue(this.m, b, (ev.out[j] as LoadOut).doneMs as number));
+    });
+    this.pool.set(key, { c, loads: ev.loads, value: ev.value, batches, values, key });
   }
 
   /** Simulates a sequence on cooker c reusing `base` (counted). */
