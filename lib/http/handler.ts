@@ -109,6 +109,12 @@ export async function parseMultipart(req: Request, limitBytes: number, tooLargeE
 export async function parseJson<T extends ZodType>(req: Request, schema: T, limitBytes = DEFAULT_BODY_LIMIT): Promise<z.infer<T>> {
   const text = await readBodyText(req, limitBytes);
   if (!text.trim()) throw badRequest('The request body is empty; send a JSON object.');
+  // Only JSON is taken: a form on another site can post text/plain or form data without a
+  // pre-flight, but not application/json, so this also closes cross-site form posts (e.g. login CSRF).
+  const type = req.headers.get('content-type') ?? '';
+  if (!/^application\/(.+\+)?json\b/i.test(type.trim())) {
+    throw new HttpError(415, 'unsupported_media_type', 'Send the body as JSON with the header Content-Type: application/json.');
+  }
   let data: unknown;
   try {
     data = JSON.parse(text);

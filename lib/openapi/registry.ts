@@ -57,7 +57,7 @@ export function buildOpenApi(operations: Operation[], info: { version: string; s
         ? { description: 'Success', content: { 'application/json': { schema: toSchema(op.response) } } }
         : { description: 'Success' },
     };
-    for (const code of new Set([...(op.body ? [400, 413, 422] : []), ...(op.roles.length ? [401, 403, 404] : []), ...(op.errors ?? [])])) {
+    for (const code of new Set([...(op.body ? [400, 413, 415, 422] : []), ...(op.roles.length ? [401, 403, 404] : []), ...(op.errors ?? [])])) {
       responses[String(code)] = { description: HTTP_TEXT[code] ?? 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } };
     }
     (paths[op.path] ??= {})[op.method] = {
@@ -89,6 +89,7 @@ const HTTP_TEXT: Record<number, string> = {
   409: 'Conflict',
   410: 'Link expired or already used',
   413: 'Body too large',
+  415: 'Body not sent as application/json',
   422: 'Invalid fields (see error.fields)',
   429: 'Too many attempts (see Retry-After)',
 };

@@ -28,6 +28,7 @@ async function routeFiles(): Promise<RouteFile[]> {
   for (const file of files) {
     const rel = path.relative(API_DIR, path.dirname(file)).split(path.sep);
     if (rel[0] === 'dev') continue; // dev tools only, not part of the API
+    if (rel.some((seg) => seg.startsWith('[...'))) continue; // the catch-all answering unknown paths with 404
     const source = await readFile(file, 'utf8');
     const methods = METHODS.filter((m) => new RegExp(`export\\s+(const\\s+${m}\\b|(async\\s+)?function\\s+${m}\\b)`).test(source));
     const segments = rel.filter((s) => s !== '').map((s) => s.replace(/^\[(\w+)\]$/, '{$1}'));

@@ -82,3 +82,23 @@ describe('GET /api/v1/kitchens', () => {
     expect(ids).toEqual(expected.map((k) => w[k].id).sort());
   });
 });
+
+describe('what the API refuses before reading a body', () => {
+  it('a body that is not declared JSON is 415 (a cross-site form cannot sign anyone in)', async () => {
+    const r = await new Client().request('POST', '/api/v1/session', undefined, {
+      raw: JSON.stringify({ email: w.emails.leadA, password: PASSWORD }),
+      headers: { 'content-type': 'text/plain' },
+    });
+    expect(r.status).toBe(415);
+    expect(r.json.error.message).toMatch(/application\/json/);
+    expect(r.headers.getSetCookie().some((c) => c.startsWith('hc_session='))).toBe(false);
+  });
+
+  it('an unknown API path answers 404 in the error shape, for every method', async () => {
+    for (const m of ['GET', 'POST', 'DELETE']) {
+      const r = await new Client().request(m, '/api/v1/no-such-thing/here');
+      expect(r.status).toBe(404);
+      expect(r.json.error.code).toBe('not_found');
+    }
+  });
+});
