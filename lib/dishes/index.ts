@@ -105,11 +105,20 @@ export async function archiveDish(viewer: Viewer, organisationId: string, dishId
   await viewer.em.flush();
 }
 
+/**
+ * A text cell a spreadsheet will not run as a formula: a leading = + - @ (or tab/CR) gets a quote
+ * (OWASP "CSV Injection"); the import takes the quote off again.
+ */
+export function safeCell(text: string): string {
+  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
+}
+const unsafeCell = (text: string) => (/^'[=+\-@\t\r]/.test(text) ? text.slice(1) : text);
+
 /** CSV export with our documented header (DISH_CSV_COLUMNS). */
 export function dishesToCsv(dishes: ReturnType<typeof describeDish>[]): string {
   return Papa.unparse({
     fields: [...DISH_CSV_COLUMNS],
-    data: dishes.map((d) => [d.name, d.method, d.servingsPerBatch, d.foodKgPerServing, d.waterKgPerServing, d.foodCpJPerKgK, d.litresPerServing, d.minPotTempC, d.holdMin, d.safeCoreTempC, d.lidOn ? 'yes' : 'no', d.backupStove, d.notes ?? '']),
+    data: dishes.map((d) => [safeCell(d.name), d.method, d.servingsPerBatch, d.foodKgPerServing, d.waterKgPerServing, d.foodCpJPerKgK, d.litresPerServing, d.minPotTempC, d.holdMin, d.safeCoreTempC, d.lidOn ? 'yes' : 'no', d.backupStove, safeCell(d.notes ?? '')]),
   });
 }
 
@@ -145,7 +154,7 @@ export function parseDishCsv(text: string): { dishes: DishInput[]; errors: CsvRo
     const numOrNaN = (c: string) => (get(c) === '' ? undefined : Number(get(c).replace(',', '.')));
     const lid = get('lid_on').toLowerCase();
     const candidate = {
-      name: get('name'),
+      name: unsafeCell(get('name')),
       method: get('method'),
       servingsPerBatch: numOrNaN('servings_per_batch'),
       foodKgPerServing: numOrNaN('food_kg_per_serving'),
@@ -157,7 +166,7 @@ export function parseDishCsv(text: string): { dishes: DishInput[]; errors: CsvRo
       safeCoreTempC: numOrNaN('safe_core_temp_c'),
       lidOn: lid === '' ? undefined : ['yes', 'true', '1', 'oui'].includes(lid) ? true : ['no', 'false', '0', 'non'].includes(lid) ? false : lid,
       backupStove: get('backup_stove') || undefined,
-      notes: cols.includes('notes') ? get('notes') || null : null,
+      notes: cols.includes('notes') ? unsafeCell(get('notes')) || null : null,
     };
     const r = createDishSchema.safeParse(candidate);
     if (!r.success) {

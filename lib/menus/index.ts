@@ -90,7 +90,7 @@ export function splitIntoBatches(lines: MenuLine[], cookers: Pick<Cooker, 'pots'
     for (let i = 0; i < n; i++) {
       const servings = base + (i < extra ? 1 : 0);
       batches.push({
-        id: `${l.id.slice(0, 8)}-${i + 1}`,
+        id: `${l.id}-${i + 1}`,
         lineId: l.id,
         dishId: d.id,
         dishName: d.name,

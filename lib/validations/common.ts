@@ -11,7 +11,9 @@ export const email = z
 export const password = z
   .string({ message: 'Enter a password.' })
   .min(10, 'Use at least 10 characters.')
-  .max(200, 'Use at most 200 characters.');
+  .max(200, 'Use at most 200 characters.')
+  // bcrypt reads only the first 72 bytes; a longer password would let its tail be anything.
+  .refine((p) => Buffer.byteLength(p, 'utf8') <= 72, 'Use at most 72 bytes (about 72 plain letters, fewer with accents or other scripts).');
 /**
  * Control characters (PostgreSQL refuses NUL in text, and none belongs in a name) and unpaired
  * UTF-16 surrogates (not encodable in UTF-8: the database would silently store U+FFFD instead).
