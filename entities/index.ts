@@ -11,6 +11,14 @@ import { CookerSchema } from './cooker';
 import { DishSchema } from './dish';
 import { MenuLineSchema } from './menu-line';
 import { PlanSchema } from './plan';
+import { CheckInSchema } from './check-in';
+import { ReadingSchema } from './reading';
+import { IdempotencyRecordSchema } from './idempotency-record';
+import { PushSubscriptionSchema } from './push-subscription';
+import { CookerApiKeySchema } from './cooker-api-key';
+import { RateCounterSchema } from './rate-counter';
+import { SettingSchema } from './setting';
+import { AlertJobSchema } from './alert-job';
 
 export * from './base';
 export * from './organisation';
@@ -26,6 +34,14 @@ export * from './cooker';
 export * from './dish';
 export * from './menu-line';
 export * from './plan';
+export * from './check-in';
+export * from './reading';
+export * from './idempotency-record';
+export * from './push-subscription';
+export * from './cooker-api-key';
+export * from './rate-counter';
+export * from './setting';
+export * from './alert-job';
 
 /** Every entity, listed explicitly for mikro-orm.config.ts. */
 export const allEntities = [
@@ -42,4 +58,12 @@ export const allEntities = [
   DishSchema,
   MenuLineSchema,
   PlanSchema,
+  CheckInSchema,
+  ReadingSchema,
+  IdempotencyRecordSchema,
+  PushSubscriptionSchema,
+  CookerApiKeySchema,
+  RateCounterSchema,
+  SettingSchema,
+  AlertJobSchema,
 ];

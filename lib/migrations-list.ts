@@ -2,6 +2,7 @@ import type { MigrationObject } from '@mikro-orm/core';
 import { Migration20261202002824 } from '../migrations/Migration20261202002824';
 import { Migration20261202003926 } from '../migrations/Migration20261202003926';
 import { Migration20261202004802 } from '../migrations/Migration20261202004802';
+import { Migration20261202010920 } from '../migrations/Migration20261202010920';
 
 /**
  * Migrations applied from code (start script, tests). Listed explicitly so they run without a
@@ -12,4 +13,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202002824', class: Migration20261202002824 },
   { name: 'Migration20261202003926', class: Migration20261202003926 },
   { name: 'Migration20261202004802', class: Migration20261202004802 },
+  { name: 'Migration20261202010920', class: Migration20261202010920 },
 ];
