@@ -28,6 +28,8 @@ cleanup() { for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done; wait 
 trap cleanup EXIT INT TERM
 
 if [ "${START_FAKES:-1}" = "1" ]; then
+  # The push fake makes a self-signed certificate at start; the web server and worker trust it (only it).
+  export PUSH_FAKE_CA="${PUSH_FAKE_CA:-$(pwd)/.var/push-tls/cert.pem}"
   npx tsx scripts/fakes.ts & pids+=($!)
 fi
 npx tsx scripts/worker.ts & pids+=($!)

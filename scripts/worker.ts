@@ -1,13 +1,20 @@
 /** The background worker: pg-boss queues on the app database. Stateless; run as many as you like. */
 import { startBoss } from '../lib/jobs/boss';
 import { registerWorkers } from '../lib/jobs/worker';
+import { reconcileAlerts } from '../lib/alerts/handlers';
+import { closeOrm, getEm } from '../lib/db';
 
 const boss = await startBoss();
 await registerWorkers(boss);
+// Alerts of plans published while no web process could reach pg-boss are scheduled now.
+reconcileAlerts(await getEm(), boss)
+  .then((n) => n && console.log(`[worker] ${n} alert(s) scheduled on start`))
+  .catch((err: unknown) => console.error('[worker] could not reconcile alerts', err));
 console.log('[worker] ready');
 
 const stop = async () => {
   await boss.stop({ graceful: true, wait: true });
+  await closeOrm();
   process.exit(0);
 };
 process.on('SIGINT', stop);

@@ -1,4 +1,7 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
 import type PgBoss from 'pg-boss';
+import { getEm } from '@/lib/db';
+import { handleAlertJob, handleHousekeeping, handlePushJob, type AlertJobData, type PushJobData, type PushRetryPolicy } from '@/lib/alerts/handlers';
 import { QUEUES } from './boss';
 
 export interface HeartbeatData {
@@ -13,8 +16,20 @@ export async function handleHeartbeat(jobs: PgBoss.Job<HeartbeatData>[]): Promis
   });
 }
 
+export interface WorkerOptions {
+  /** Entity manager per job; default the app's ORM (lib/db). */
+  em?: () => Promise<EntityManager>;
+  /** How often idle workers look for jobs [s]; pg-boss's default is 2. */
+  pollingIntervalSeconds?: number;
+  pushRetry?: PushRetryPolicy;
+  /** Certificate of the local push fake to trust (default PUSH_FAKE_CA). */
+  pushCaPath?: string;
+}
+
 /** Registers every handler and schedule on a started boss. */
-export async function registerWorkers(boss: PgBoss): Promise<void> {
+export async function registerWorkers(boss: PgBoss, opts: WorkerOptions = {}): Promise<void> {
+  const em = opts.em ?? getEm;
+  const poll = opts.pollingIntervalSeconds !== undefined ? { pollingIntervalSeconds: opts.pollingIntervalSeconds } : {};
   await boss.work<HeartbeatData>(QUEUES.heartbeat, async (jobs) => {
     const r = await handleHeartbeat(jobs);
     console.log(`[worker] heartbeat, lag ${r[0]?.lagMs ?? 0} ms`);
@@ -22,4 +37,11 @@ export async function registerWorkers(boss: PgBoss): Promise<void> {
   });
   // Every 5 minutes; pg-boss keeps one schedule per name however many workers run.
   await boss.schedule(QUEUES.heartbeat, '*/5 * * * *', { sentAt: new Date().toISOString() });
+
+  await boss.work<AlertJobData>(QUEUES.alert, poll, async ([job]) => (job ? handleAlertJob(await em(), boss, job.id, job.data) : null));
+  await boss.work<PushJobData>(QUEUES.push, poll, async ([job]) =>
+    job ? handlePushJob(await em(), boss, job.data, { ...(opts.pushRetry ? { retry: opts.pushRetry } : {}), ...(opts.pushCaPath ? { caPath: opts.pushCaPath } : {}) }) : null,
+  );
+  await boss.work(QUEUES.housekeeping, async () => handleHousekeeping(await em()));
+  await boss.schedule(QUEUES.housekeeping, '17 * * * *', {});
 }

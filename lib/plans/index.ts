@@ -295,9 +295,12 @@ export async function publishPlan(access: KitchenAccess, planId: string) {
   return describePlan(await publishDraft(access.em, access.kitchen, access.user.id, planId));
 }
 
-/** Publishing without a request (also used by the demo loader). */
+/**
+ * Publishing without a request (also used by the demo loader). After the transaction the plan's ready
+ * alerts are scheduled (lib/alerts; pg-boss has its own connection, so it cannot join the transaction).
+ */
 export async function publishDraft(em: EntityManager, kitchen: Kitchen, actorId: string | null, planId: string): Promise<Plan> {
-  return em.transactional(async (tx) => {
+  const published = await em.transactional(async (tx) => {
     const plan = await tx.findOne(PlanSchema, { id: planId, kitchen: kitchen.id }, { populate: ['kitchen'], lockMode: 4 });
     if (!plan) throw notFound('Plan');
     if (plan.status !== 'draft') throw conflict(`Plan version ${plan.version} is already ${plan.status}.`);
@@ -310,4 +313,7 @@ export async function publishDraft(em: EntityManager, kitchen: Kitchen, actorId:
     await tx.flush();
     return plan;
   });
+  const { scheduleAfterPublish } = await import('@/lib/alerts/publish-hook');
+  await scheduleAfterPublish(em, published.id);
+  return published;
 }
