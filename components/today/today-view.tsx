@@ -164,7 +164,7 @@ export function TodayView({ kitchenId, userId, timeZone }: { kitchenId: string; 
       {!data && !loadError && <p aria-busy="true">{t('loading')}</p>}
 
       {data && <Warnings warnings={data.warnings} cookers={data.cookers} clock={clock} fmtTemp={fmtTemp} />}
-      {data?.plan && <AlertsToggle kitchenId={kitchenId} vapidPublicKey={data.vapidPublicKey} online={online} />}
+      {data && <AlertsToggle kitchenId={kitchenId} vapidPublicKey={data.vapidPublicKey} online={online} />}
 
       {data && !data.plan && (
         <p className="card text-lg" data-testid="no-plan">
