@@ -14,7 +14,9 @@
 const VERSION = 'hc-1';
 const SHELL = `${VERSION}-shell`;
 const DATA = `${VERSION}-data`;
-const NETWORK_TIMEOUT_MS = 4000;
+/** Pages wait this long for the network before the saved copy is shown; the plan JSON a little longer. */
+const PAGE_TIMEOUT_MS = 4000;
+const DATA_TIMEOUT_MS = 8000;
 const MAX_SHELL_ENTRIES = 200;
 
 const isTodayPage = (url) => /^\/kitchens\/[0-9a-f-]{36}\/today\/?$/i.test(url.pathname);
@@ -67,10 +69,10 @@ function withTimeout(promise, ms) {
   });
 }
 
-async function networkFirst(cacheName, request) {
+async function networkFirst(cacheName, request, timeoutMs) {
   const network = fetch(request);
   try {
-    const res = await withTimeout(network, NETWORK_TIMEOUT_MS);
+    const res = await withTimeout(network, timeoutMs);
     if (res.ok) {
       await store(cacheName, request, res.clone());
       return res;
@@ -116,6 +118,8 @@ async function cacheUrls(urls) {
     if (url.origin !== self.location.origin) continue;
     const cacheName = isTodayData(url) ? DATA : SHELL;
     if (!(isStatic(url) || isTodayPage(url) || isTodayData(url))) continue;
+    // Static files never change under the same name: fetch only those not kept yet.
+    if (isStatic(url) && (await (await caches.open(SHELL)).match(url.href))) continue;
     try {
       const res = await fetch(url.href, { credentials: 'same-origin' });
       await store(cacheName, new Request(url.href), res);
@@ -146,8 +150,8 @@ self.addEventListener('fetch', (event) => {
   }
   if (request.method !== 'GET') return;
   if (isStatic(url)) event.respondWith(cacheFirst(SHELL, request));
-  else if (isTodayData(url)) event.respondWith(networkFirst(DATA, request));
-  else if (request.mode === 'navigate' && isTodayPage(url)) event.respondWith(networkFirst(SHELL, request));
+  else if (isTodayData(url)) event.respondWith(networkFirst(DATA, request, DATA_TIMEOUT_MS));
+  else if (request.mode === 'navigate' && isTodayPage(url)) event.respondWith(networkFirst(SHELL, request, PAGE_TIMEOUT_MS));
 });
 
 self.addEventListener('push', (event) => {

@@ -3,9 +3,12 @@ import { startBoss } from '../lib/jobs/boss';
 import { registerWorkers } from '../lib/jobs/worker';
 import { reconcileAlerts } from '../lib/alerts/handlers';
 import { closeOrm, getEm } from '../lib/db';
+import { getVapidKeys } from '../lib/push/vapid';
 
 const boss = await startBoss();
 await registerWorkers(boss);
+// The VAPID key pair is made on first start (and kept in the database) if it does not exist yet.
+await getVapidKeys(await getEm());
 // Alerts of plans published while no web process could reach pg-boss are scheduled now.
 reconcileAlerts(await getEm(), boss)
   .then((n) => n && console.log(`[worker] ${n} alert(s) scheduled on start`))

@@ -3,13 +3,14 @@
  * alerts become delayed pg-boss jobs at each slot's predicted ready time); then, with the clock set to
  * tomorrow morning, a thermometer reading says the store is behind: the cooker's alerts move to the
  * re-simulated times (old jobs cancelled, new ones delayed to match). A skipped slot cancels its job.
- * Finally an alert re-armed a few seconds before its time fires, and the cook's phone gets it.
+ * An alert re-armed a few seconds before its time fires, and the cook's phone gets it. Re-publishing
+ * the day cancels the old version's jobs and schedules the new one's.
  */
 import { randomUUID } from 'node:crypto';
 import type PgBoss from 'pg-boss';
 import { decrypt } from 'http_ece';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { AlertJobSchema, MembershipSchema, PushSubscriptionSchema, UserSchema, type AlertJob } from '../../entities';
+import { AlertJobSchema, CheckInSchema, MembershipSchema, PushSubscriptionSchema, UserSchema, type AlertJob } from '../../entities';
 import type { KitchenAccess } from '../../lib/auth/guard';
 import { QUEUES, startBoss } from '../../lib/jobs/boss';
 import { registerWorkers } from '../../lib/jobs/worker';
@@ -18,7 +19,8 @@ import { scheduleAlertsForPlan, type Clock } from '../../lib/alerts/schedule';
 import { recordCheckIn } from '../../lib/cooks/check-ins';
 import { recordManualReading } from '../../lib/cooks/readings';
 import { getTodayView } from '../../lib/cooks/today';
-import type { PlanCookerView } from '../../lib/plans';
+import { createDraft, publishDraft, type PlanCookerView } from '../../lib/plans';
+import type { PlannerResult } from '../../lib/planner';
 import { addDays, localDateString, zonedTimeToUtcMs } from '../../lib/time';
 import { closeTestOrm, createWorld, testOrm, type World } from '../helpers/fixtures';
 import { fakeDeliveries, makeSubscription, publishPlanFor, waitUntil } from '../helpers/cooks';
@@ -162,5 +164,25 @@ describe('ready alerts', () => {
     const row = (await alertsOf()).find((a) => a.id === target.id)!;
     expect(row.state).toBe('sent');
     expect((await job(row.jobId))?.state).toBe('completed');
+  });
+
+  it('re-publishing the day moves every alert to the new version: the old jobs are cancelled', async () => {
+    const e = await em();
+    const kitchen = (await cookAccess()).kitchen;
+    const before = await e.find(AlertJobSchema, { planId, state: 'scheduled' });
+    expect(before.length).toBeGreaterThan(0);
+    const draft = await createDraft(e, kitchen, null, date, 1);
+    const next = await publishDraft(e, kitchen, null, draft.id);
+    expect(next.version).toBe(2);
+    for (const old of before) {
+      expect((await (await em()).findOneOrFail(AlertJobSchema, { id: old.id })).state).toBe('cancelled');
+      expect((await job(old.jobId))?.state).toBe('cancelled');
+    }
+    const fresh = await (await em()).find(AlertJobSchema, { planId: next.id, kind: 'ready', state: 'scheduled' });
+    const skipped = new Set((await (await em()).find(CheckInSchema, { kitchen: w.kitchenA.id, date, kind: 'skipped' })).map((c) => c.batchId));
+    const expected = (next.result as PlannerResult).slots.filter((s) => !skipped.has(s.batchId));
+    expect(fresh.map((r) => r.batchId).sort()).toEqual(expected.map((s) => s.batchId).sort());
+    for (const r of fresh) expect((await job(r.jobId))?.state).toBe('created');
+    planId = next.id; // afterAll cancels what is left of the new version
   });
 });
