@@ -9,7 +9,7 @@ import { PrefsProvider, type Prefs } from './prefs';
 
 export interface NavItem {
   href: string;
-  key: 'home' | 'overview' | 'people' | 'organisation' | 'settings' | 'mailbox';
+  key: 'home' | 'overview' | 'people' | 'organisation' | 'settings' | 'mailbox' | 'push';
 }
 
 export interface ShellProps {

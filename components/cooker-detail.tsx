@@ -6,6 +6,7 @@ import { useEffect, useState } from 'react';
 import { apiFetch } from '@/lib/client/api';
 import { CookerForm, cookerToForm } from './cooker-form';
 import { PredictionChart } from './prediction-chart';
+import { CookerApiKeys } from './cooker-api-keys';
 
 type Cooker = Parameters<typeof cookerToForm>[0] & { id: string; name: string; kind: string; mediumName: string; pots: { id: string; name: string }[] };
 
@@ -30,6 +31,7 @@ export function CookerDetail({ kitchenId, cookerId, canEdit }: { kitchenId: stri
         </p>
       </div>
       <PredictionChart kitchenId={kitchenId} cookerId={cookerId} potNames={Object.fromEntries(c.pots.map((p) => [p.id, p.name]))} />
+      {canEdit && <CookerApiKeys kitchenId={kitchenId} cookerId={cookerId} />}
       {canEdit && <CookerForm kitchenId={kitchenId} cookerId={cookerId} initial={cookerToForm(c)} />}
     </div>
   );

@@ -44,7 +44,8 @@ export function KitchenList() {
       {kitchens.map((k) => (
         <li key={k.id} className="card flex flex-col gap-2">
           <h2 className="text-lg font-bold">
-            <Link href={`/kitchens/${k.id}`} className="hover:underline" aria-label={t('open', { name: k.name })}>
+            {/* Cooks land on today's slots; the others on the kitchen's overview. */}
+            <Link href={k.role === 'cook' ? `/kitchens/${k.id}/today` : `/kitchens/${k.id}`} className="hover:underline" aria-label={t('open', { name: k.name })}>
               {k.name}
             </Link>
           </h2>
@@ -59,6 +60,9 @@ export function KitchenList() {
           <p className="text-sm">
             {tc('localTime')}: {format.dateTime(now, { timeZone: k.timeZone, hour: '2-digit', minute: '2-digit', weekday: 'short' })} ({k.timeZone})
           </p>
+          <Link href={`/kitchens/${k.id}/today`} className="btn-quiet w-fit">
+            {t('today')}
+          </Link>
           {k.role && <p className="mt-auto w-fit rounded-full bg-tide-50 px-3 py-1 text-xs font-semibold text-tide-700">{tc(`roles.${k.role}` as 'roles.cook')}</p>}
         </li>
       ))}

@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { usePathname } from 'next/navigation';
 import { useTranslations } from 'next-intl';
 
-export type KitchenTab = 'kitchen' | 'plan' | 'menu' | 'dishes' | 'cookers' | 'forecast' | 'settings';
+export type KitchenTab = 'today' | 'kitchen' | 'plan' | 'menu' | 'dishes' | 'cookers' | 'forecast' | 'settings';
 
 /** The kitchen's own sections, as a scrollable tab row that works on a phone. */
 export function KitchenTabs({ kitchenId, kitchenName, tabs }: { kitchenId: string; kitchenName: string; tabs: KitchenTab[] }) {

@@ -38,6 +38,19 @@ export function PredictionChart({ kitchenId, cookerId, potNames }: { kitchenId: 
   // The request key last answered; "busy" while the chosen day differs from it.
   const [answered, setAnswered] = useState<string | null>(null);
   const busy = answered !== (date || 'default');
+  // Readings of the chosen day, drawn as points against the prediction.
+  const [readings, setReadings] = useState<{ date: string; list: { at: string; storeC: number | null; potC: number | null }[] } | null>(null);
+  const readingsDate = p?.date ?? null;
+  useEffect(() => {
+    if (!readingsDate) return;
+    let live = true;
+    apiFetch<{ date: string; readings: { at: string; storeC: number | null; potC: number | null }[] }>(`/api/v1/kitchens/${kitchenId}/cookers/${cookerId}/readings?date=${readingsDate}`).then((r) => {
+      if (live) setReadings(r.ok ? { date: r.data.date, list: r.data.readings } : null);
+    });
+    return () => {
+      live = false;
+    };
+  }, [kitchenId, cookerId, readingsDate]);
 
   useEffect(() => {
     let live = true;
@@ -64,6 +77,19 @@ export function PredictionChart({ kitchenId, cookerId, potNames }: { kitchenId: 
   const data = useMemo(() => {
     if (!p) return null;
     const refPot = p.referenceLoad?.potId;
+    // Each reading on the nearest point of the prediction's time axis (10-min steps).
+    const measured = (key: 'storeC' | 'potC') => {
+      const out: (number | null)[] = p.series.t.map(() => null);
+      const t0 = p.series.t[0] ?? 0;
+      const dt = (p.series.t[1] ?? t0 + 600_000) - t0;
+      for (const r of readings?.date === p.date ? readings.list : []) {
+        const v = r[key];
+        const i = Math.round((Date.parse(r.at) - t0) / dt);
+        if (v != null && i >= 0 && i < out.length) out[i] = toUnit(v);
+      }
+      return out;
+    };
+    const hasReadings = readings?.date === p.date && readings.list.length > 0;
     return {
       labels: p.series.t.map(hhmm),
       datasets: [
@@ -71,11 +97,17 @@ export function PredictionChart({ kitchenId, cookerId, potNames }: { kitchenId: 
         ...(refPot && p.series.potTempC[refPot]
           ? [{ label: `${t('pot')} (${unitLabel})`, data: p.series.potTempC[refPot]!.map((v) => (v == null ? null : toUnit(v))), borderColor: '#0f6e6e', backgroundColor: '#0f6e6e', borderDash: [6, 4], borderWidth: 2, pointRadius: 0, yAxisID: 'y', spanGaps: false }]
           : []),
+        ...(hasReadings
+          ? [
+              { label: `${t('measuredStore')} (${unitLabel})`, data: measured('storeC'), borderColor: '#772c14', backgroundColor: '#772c14', showLine: false, pointRadius: 4, pointStyle: 'rectRot' as const, yAxisID: 'y' },
+              { label: `${t('measuredPot')} (${unitLabel})`, data: measured('potC'), borderColor: '#0b5656', backgroundColor: '#0b5656', showLine: false, pointRadius: 4, pointStyle: 'triangle' as const, yAxisID: 'y' },
+            ]
+          : []),
         { label: `${t('charge')} (%)`, data: p.series.charge.map((c) => Math.round(c * 100)), borderColor: '#5c4a3a', backgroundColor: 'rgba(92,74,58,0.08)', fill: true, borderDash: [2, 3], borderWidth: 1.5, pointRadius: 0, yAxisID: 'y1' },
       ],
     };
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [p, unitLabel]);
+  }, [p, unitLabel, readings]);
 
   const summary = useMemo(() => {
     if (!p) return null;
@@ -129,6 +161,7 @@ export function PredictionChart({ kitchenId, cookerId, potNames }: { kitchenId: 
               }}
             />
           </div>
+          {readings?.date === p.date && readings.list.length > 0 && <p className="text-sm text-clay-700">{t('readingsCount', { count: readings.list.length })}</p>}
           {p.referenceLoad && (
             <p className="text-sm text-clay-700">
               {t('reference', { water: format.number(p.referenceLoad.waterKg, { maximumFractionDigits: 0 }), pot: potNames[p.referenceLoad.potId] ?? p.referenceLoad.potId, min: fmtTemp(p.referenceLoad.minTempC) })}

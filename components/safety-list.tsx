@@ -2,12 +2,16 @@
 
 import { useTranslations } from 'next-intl';
 import type { SafetyNote } from '@/lib/safety/notes';
+import { usePrefs } from './prefs';
 
 const ICON = { danger: '⛔', warning: '⚠', info: 'ℹ' } as const;
 
 /** Safety notes of a slot, most serious first, each with a text label (not colour alone). */
 export function SafetyList({ notes, compact = false }: { notes: SafetyNote[]; compact?: boolean }) {
   const t = useTranslations('safety');
+  const { fmtTemp } = usePrefs();
+  // Temperatures (params named …C, in °C) are shown in the reader's unit, like the rest of the page.
+  const words = (n: SafetyNote) => ({ meltC: fmtTemp(100), ...Object.fromEntries(Object.entries(n.params ?? {}).map(([k, v]) => [k, typeof v === 'number' && k.endsWith('C') ? fmtTemp(v) : v])) });
   // Compact (the lead's plan): the dangers and warnings, and the reminder; cooks see every note.
   const shown = compact ? notes.filter((n) => n.level !== 'info' || n.code === 'local-codes') : notes;
   if (!shown.length) return null;
@@ -19,7 +23,7 @@ export function SafetyList({ notes, compact = false }: { notes: SafetyNote[]; co
           className={`flex gap-2 rounded px-2 py-1 ${n.level === 'danger' ? 'bg-ember-50 font-semibold text-ember-800' : n.level === 'warning' ? 'bg-amber-50 text-clay-900' : 'text-clay-700'}`}
         >
           <span aria-hidden="true">{ICON[n.level]}</span>
-          <span>{t(n.code, n.params ?? {})}</span>
+          <span>{t(n.code, words(n))}</span>
         </li>
       ))}
     </ul>

@@ -13,6 +13,14 @@ import { MenuLineSchema } from './menu-line';
 import { PlanSchema } from './plan';
 import { ForecastSchema } from './forecast';
 import { ForecastPointSchema } from './forecast-point';
+import { CheckInSchema } from './check-in';
+import { ReadingSchema } from './reading';
+import { IdempotencyRecordSchema } from './idempotency-record';
+import { PushSubscriptionSchema } from './push-subscription';
+import { CookerApiKeySchema } from './cooker-api-key';
+import { RateCounterSchema } from './rate-counter';
+import { SettingSchema } from './setting';
+import { AlertJobSchema } from './alert-job';
 
 export * from './base';
 export * from './organisation';
@@ -30,6 +38,14 @@ export * from './menu-line';
 export * from './plan';
 export * from './forecast';
 export * from './forecast-point';
+export * from './check-in';
+export * from './reading';
+export * from './idempotency-record';
+export * from './push-subscription';
+export * from './cooker-api-key';
+export * from './rate-counter';
+export * from './setting';
+export * from './alert-job';
 
 /** Every entity, listed explicitly for mikro-orm.config.ts. */
 export const allEntities = [
@@ -48,4 +64,12 @@ export const allEntities = [
   PlanSchema,
   ForecastSchema,
   ForecastPointSchema,
+  CheckInSchema,
+  ReadingSchema,
+  IdempotencyRecordSchema,
+  PushSubscriptionSchema,
+  CookerApiKeySchema,
+  RateCounterSchema,
+  SettingSchema,
+  AlertJobSchema,
 ];

@@ -27,6 +27,17 @@ const schema = z.object({
   FORECAST_RETENTION_DAYS: z.coerce.number().int().min(1, 'FORECAST_RETENTION_DAYS is at least 1').max(3650).default(14),
   /** Per-try timeout of a forecast request [ms]. */
   FORECAST_TIMEOUT_MS: z.coerce.number().int().min(100).max(120_000).default(10_000),
+  /** PEM certificate of the local push fake; when set, the push sender trusts it (and only then). */
+  PUSH_FAKE_CA: z.string().min(1).optional(),
+  /** Where the local push fake keeps what it received (read by the dev push page). */
+  PUSH_FAKE_DIR: z.string().default('.var/push'),
+  /** VAPID key pair (base64url, from `npx web-push generate-vapid-keys`); made on first use and kept in the database when absent. */
+  VAPID_PUBLIC_KEY: z.string().regex(/^[A-Za-z0-9_-]{80,100}$/, 'VAPID_PUBLIC_KEY must be a base64url P-256 public key').optional(),
+  VAPID_PRIVATE_KEY: z.string().regex(/^[A-Za-z0-9_-]{40,50}$/, 'VAPID_PRIVATE_KEY must be a base64url P-256 private key').optional(),
+  /** Contact the push services can reach the sender at (mailto: or https:). */
+  VAPID_SUBJECT: z.string().regex(/^(mailto:|https:)/, 'VAPID_SUBJECT must start with mailto: or https:').optional(),
+  /** Sensor readings allowed per cooker API key and minute. */
+  READINGS_RATE_PER_MIN: z.coerce.number().int().min(1).max(100_000).default(60),
 });
 
 export type Env = z.infer<typeof schema> & { sessionSecret: string; devTools: boolean; cookieSecure: boolean };
@@ -46,6 +57,9 @@ export function getEnv(): Env {
   const e = parsed.data;
   if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
     throw new Error('Invalid environment:\nSESSION_SECRET: required in production (32+ characters; npm start makes one in .var/session-secret)');
+  }
+  if (Boolean(e.VAPID_PUBLIC_KEY) !== Boolean(e.VAPID_PRIVATE_KEY)) {
+    throw new Error('Invalid environment:\nVAPID_PUBLIC_KEY, VAPID_PRIVATE_KEY: set both or neither (without them a key pair is made and kept in the database)');
   }
   cached = {
     ...e,

@@ -3,6 +3,7 @@ import { Migration20261202002824 } from '../migrations/Migration20261202002824';
 import { Migration20261202003926 } from '../migrations/Migration20261202003926';
 import { Migration20261202004802 } from '../migrations/Migration20261202004802';
 import { Migration20261202004846 } from '../migrations/Migration20261202004846';
+import { Migration20261202010920 } from '../migrations/Migration20261202010920';
 
 /**
  * Migrations applied from code (start script, tests). Listed explicitly so they run without a
@@ -14,4 +15,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202003926', class: Migration20261202003926 },
   { name: 'Migration20261202004802', class: Migration20261202004802 },
   { name: 'Migration20261202004846', class: Migration20261202004846 },
+  { name: 'Migration20261202010920', class: Migration20261202010920 },
 ];

@@ -3,6 +3,7 @@ import { MikroORM } from '@mikro-orm/postgresql';
 import config from '../mikro-orm.config';
 import { KitchenSchema } from '../entities';
 import { seedDemo, seedDemoPlans, DEMO_ORG } from '../lib/demo/seed';
+import { stopBossClient } from '../lib/jobs/client';
 
 if (process.env.HEARTHCAST_DEMO !== '1') {
   console.error('[seed] demo data loads only in demo mode: set HEARTHCAST_DEMO=1 (npm start does by default).');
@@ -18,5 +19,7 @@ try {
   const plans = await seedDemoPlans(em, bySlug);
   for (const p of plans) console.log(`[seed] planned ${p}`);
 } finally {
+  // Publishing today's plans scheduled their alerts through a pg-boss client; let the process end.
+  await stopBossClient();
   await orm.close(true);
 }

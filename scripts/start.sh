@@ -30,6 +30,8 @@ trap cleanup EXIT INT TERM
 if [ "${START_FAKES:-1}" = "1" ]; then
   export FORECAST_FAKE_PORT="${FORECAST_FAKE_PORT:-4011}"
   export FORECAST_URL="${FORECAST_URL:-http://127.0.0.1:${FORECAST_FAKE_PORT}}"
+  # The push fake makes a self-signed certificate at start; the web server and worker trust it (only it).
+  export PUSH_FAKE_CA="${PUSH_FAKE_CA:-$(pwd)/.var/push-tls/cert.pem}"
   npx tsx scripts/fakes.ts & pids+=($!)
   # The worker fetches every kitchen's forecast as it starts: let the forecast fake listen first (≤ 15 s).
   for _ in $(seq 1 75); do (exec 3<>"/dev/tcp/127.0.0.1/${FORECAST_FAKE_PORT}") 2>/dev/null && break; sleep 0.2; done

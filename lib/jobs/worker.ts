@@ -1,5 +1,7 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
 import type PgBoss from 'pg-boss';
 import { getEm } from '@/lib/db';
+import { handleAlertJob, handleHousekeeping, handlePushJob, type AlertJobData, type PushJobData, type PushRetryPolicy } from '@/lib/alerts/handlers';
 import { QUEUES } from './boss';
 import { forecastRefreshCron, handleForecastRefresh, type ForecastRefreshData } from './forecast-refresh';
 
@@ -15,8 +17,20 @@ export async function handleHeartbeat(jobs: PgBoss.Job<HeartbeatData>[]): Promis
   });
 }
 
+export interface WorkerOptions {
+  /** Entity manager per job; default the app's ORM (lib/db). */
+  em?: () => Promise<EntityManager>;
+  /** How often idle workers look for jobs [s]; pg-boss's default is 2. */
+  pollingIntervalSeconds?: number;
+  pushRetry?: PushRetryPolicy;
+  /** Certificate of the local push fake to trust (default PUSH_FAKE_CA). */
+  pushCaPath?: string;
+}
+
 /** Registers every handler and schedule on a started boss. */
-export async function registerWorkers(boss: PgBoss): Promise<void> {
+export async function registerWorkers(boss: PgBoss, opts: WorkerOptions = {}): Promise<void> {
+  const em = opts.em ?? getEm;
+  const poll = opts.pollingIntervalSeconds !== undefined ? { pollingIntervalSeconds: opts.pollingIntervalSeconds } : {};
   await boss.work<HeartbeatData>(QUEUES.heartbeat, async (jobs) => {
     const r = await handleHeartbeat(jobs);
     console.log(`[worker] heartbeat, lag ${r[0]?.lagMs ?? 0} ms`);
@@ -37,4 +51,10 @@ export async function registerWorkers(boss: PgBoss): Promise<void> {
     return out.length === 1 ? out[0] : out;
   });
   await boss.schedule(QUEUES.forecastRefresh, forecastRefreshCron(), {});
+  await boss.work<AlertJobData>(QUEUES.alert, poll, async ([job]) => (job ? handleAlertJob(await em(), boss, job.id, job.data) : null));
+  await boss.work<PushJobData>(QUEUES.push, poll, async ([job]) =>
+    job ? handlePushJob(await em(), boss, job.data, { ...(opts.pushRetry ? { retry: opts.pushRetry } : {}), ...(opts.pushCaPath ? { caPath: opts.pushCaPath } : {}) }) : null,
+  );
+  await boss.work(QUEUES.housekeeping, async () => handleHousekeeping(await em()));
+  await boss.schedule(QUEUES.housekeeping, '17 * * * *', {});
 }

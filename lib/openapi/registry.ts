@@ -16,6 +16,8 @@ export interface Operation {
   response?: ZodType;
   successStatus?: number;
   errors?: number[];
+  /** How the caller authenticates when not by session: a cooker API key as a Bearer token (sensors). */
+  auth?: 'cookerKey';
 }
 
 const errorSchema = {
@@ -57,13 +59,17 @@ export function buildOpenApi(operations: Operation[], info: { version: string; s
         ? { description: 'Success', content: { 'application/json': { schema: toSchema(op.response) } } }
         : { description: 'Success' },
     };
-    for (const code of new Set([...(op.body ? [400, 413, 415, 422] : []), ...(op.roles.length ? [401, 403, 404] : []), ...(op.errors ?? [])])) {
+    for (const code of new Set([...(op.body ? [400, 413, 415, 422] : []), ...(op.roles.length ? [401, 403, 404] : []), ...(op.auth ? [401] : []), ...(op.errors ?? [])])) {
       responses[String(code)] = { description: HTTP_TEXT[code] ?? 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } };
     }
     (paths[op.path] ??= {})[op.method] = {
       summary: op.summary,
       tags: [op.tag],
-      ...(op.roles.length ? { security: [{ session: [] }], description: `Roles: ${op.roles.join(', ')}.` } : { security: [] }),
+      ...(op.auth === 'cookerKey'
+        ? { security: [{ cookerKey: [] }], description: 'A cooker API key (made by the kitchen lead on the cooker page) as `Authorization: Bearer <key>`.' }
+        : op.roles.length
+          ? { security: [{ session: [] }], description: `Roles: ${op.roles.join(', ')}.` }
+          : { security: [] }),
       ...(params.length ? { parameters: params } : {}),
       ...(op.body ? { requestBody: { required: true, content: { [op.bodyType ?? 'application/json']: { schema: bodySchema(op.body) } } } } : {}),
       responses,
@@ -74,7 +80,10 @@ export function buildOpenApi(operations: Operation[], info: { version: string; s
     info: { title: 'Hearthcast API', version: info.version, description: 'Planning for community kitchens that cook on stored-heat solar cookers.' },
     servers: [{ url: info.serverUrl }],
     components: {
-      securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'hc_session', description: 'Set by POST /api/v1/session.' } },
+      securitySchemes: {
+        session: { type: 'apiKey', in: 'cookie', name: 'hc_session', description: 'Set by POST /api/v1/session.' },
+        cookerKey: { type: 'http', scheme: 'bearer', description: "A cooker's sensor key (hck_…), shown once when the lead makes it; revocable." },
+      },
       schemas: { Error: errorSchema },
     },
     paths,

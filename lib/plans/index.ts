@@ -317,9 +317,12 @@ export async function publishPlan(access: KitchenAccess, planId: string) {
   return describePlan(await publishDraft(access.em, access.kitchen, access.user.id, planId));
 }
 
-/** Publishing without a request (also used by the demo loader). */
+/**
+ * Publishing without a request (also used by the demo loader). After the transaction the plan's ready
+ * alerts are scheduled (lib/alerts; pg-boss has its own connection, so it cannot join the transaction).
+ */
 export async function publishDraft(em: EntityManager, kitchen: Kitchen, actorId: string | null, planId: string): Promise<Plan> {
-  return em.transactional(async (tx) => {
+  const published = await em.transactional(async (tx) => {
     await lockKitchenPlans(tx, kitchen.id);
     // FOR UPDATE (waits): a second publish of the same draft sees it published and gets 409. Not
     // lockMode 4 (PESSIMISTIC_PARTIAL_WRITE = SKIP LOCKED), which skipped the locked row and answered 404.
@@ -335,4 +338,7 @@ export async function publishDraft(em: EntityManager, kitchen: Kitchen, actorId:
     await tx.flush();
     return plan;
   });
+  const { scheduleAfterPublish } = await import('@/lib/alerts/publish-hook');
+  await scheduleAfterPublish(em, published.id);
+  return published;
 }

@@ -1,7 +1,7 @@
 /**
- * Starts what the API and end-to-end tests need, once per run: the SMTP and forecast fakes on free
- * ports and the production build served by `next start` against the test database (migrated, demo
- * loaded), pointed at the fakes.
+ * Starts what the API and end-to-end tests need, once per run: the SMTP, forecast and push fakes on
+ * free ports and the production build served by `next start` against the test database (migrated,
+ * demo loaded with today's published plan and tomorrow's draft in each demo kitchen), pointed at the fakes.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtemp } from 'node:fs/promises';
@@ -14,6 +14,7 @@ import type { TestProject } from 'vitest/node';
 import { MikroORM } from '@mikro-orm/postgresql';
 import { startSmtpFake } from '../../lib/fakes/smtp';
 import { startForecastFake } from '../../lib/fakes/forecast';
+import { startPushFake } from '../../lib/fakes/push';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -22,6 +23,10 @@ declare module 'vitest' {
     databaseUrl: string;
     /** Base URL of the forecast fake (Open-Meteo API); POST /__control sets its failure mode. */
     forecastUrl: string;
+    /** The push fake: its origin (https://127.0.0.1:port), its certificate (PUSH_FAKE_CA) and where it keeps deliveries. */
+    pushFakeOrigin: string;
+    pushFakeCa: string;
+    pushFakeDir: string;
   }
 }
 
@@ -60,12 +65,13 @@ export default async function setup(project: TestProject) {
   const orm = await MikroORM.init({ ...config, clientUrl: databaseUrl });
   await orm.getMigrator().up();
   const { seedDemo, seedDemoPlans } = await import('../../lib/demo/seed');
-  const { KitchenSchema } = await import('../../entities');
   const demo = await seedDemo(orm.em.fork());
-  // Today's published plan and tomorrow's draft in every demo kitchen, as after npm start.
+  // Today's published plan and tomorrow's draft (kept when present); publishing schedules their alerts.
+  const { KitchenSchema } = await import('../../entities');
   const em = orm.em.fork();
   const kitchens = await em.find(KitchenSchema, { id: { $in: Object.values(demo.kitchens).map((k) => k.id) } }, { populate: ['organisation'] });
   await seedDemoPlans(em, Object.fromEntries(Object.entries(demo.kitchens).map(([slug, k]) => [slug, kitchens.find((x) => x.id === k.id)!])), { timeLimitS: 1 });
+  await (await import('../../lib/jobs/client')).stopBossClient();
   // Failed sign-ins count for 15 minutes (lib/auth/throttle.ts): left over from a run a few minutes
   // ago, they would make the fixed addresses of the throttling tests answer 429 too early.
   await orm.em.getConnection().execute('delete from login_attempts');
@@ -74,6 +80,10 @@ export default async function setup(project: TestProject) {
   const mailboxDir = await mkdtemp(path.join(tmpdir(), 'hearthcast-mail-'));
   const smtp = await startSmtpFake({ port: 0, dir: mailboxDir });
   const forecast = await startForecastFake({ port: 0 });
+  const pushFakeDir = await mkdtemp(path.join(tmpdir(), 'hearthcast-push-'));
+  const push = await startPushFake({ port: 0, dir: pushFakeDir });
+  // The test files' own workers (tests/jobs) send through the same fake.
+  process.env.PUSH_FAKE_CA = push.caPath;
 
   if (!existsSync(path.resolve('.next/BUILD_ID'))) throw new Error('No production build: run `npx next build` (npm test does) before the tests.');
   const port = await freePort();
@@ -87,6 +97,8 @@ export default async function setup(project: TestProject) {
       SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
       MAILBOX_DIR: mailboxDir,
       FORECAST_URL: forecast.url,
+      PUSH_FAKE_CA: push.caPath,
+      PUSH_FAKE_DIR: pushFakeDir,
       DEV_TOOLS: '1',
       SESSION_SECRET: randomBytes(32).toString('base64url'),
       NEXT_TELEMETRY_DISABLED: '1',
@@ -107,11 +119,15 @@ export default async function setup(project: TestProject) {
   project.provide('mailboxDir', mailboxDir);
   project.provide('databaseUrl', databaseUrl);
   project.provide('forecastUrl', forecast.url);
+  project.provide('pushFakeOrigin', push.origin);
+  project.provide('pushFakeCa', push.caPath);
+  project.provide('pushFakeDir', pushFakeDir);
 
   return async () => {
     server.kill('SIGTERM');
     await smtp.close();
     await forecast.close();
+    await push.close();
     if (process.env.SHOW_SERVER_LOG === '1') console.log(logs.join(''));
   };
 }

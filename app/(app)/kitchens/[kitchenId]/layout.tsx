@@ -5,7 +5,7 @@ import { KitchenTabs, type KitchenTab } from '@/components/kitchen-tabs';
 export default async function KitchenLayout({ children, params }: { children: React.ReactNode; params: Promise<{ kitchenId: string }> }) {
   const { kitchenId } = await params;
   const access = await getKitchenPageAccess(kitchenId);
-  const tabs: KitchenTab[] = ['kitchen', 'plan', 'menu', 'dishes', 'cookers', 'forecast'];
+  const tabs: KitchenTab[] = ['today', 'kitchen', 'plan', 'menu', 'dishes', 'cookers', 'forecast'];
   if (access.canPlan) tabs.push('settings');
   return (
     <>

@@ -1,0 +1,71 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { MembershipSchema, PushSubscriptionSchema, type PushSubscription } from '@/entities';
+import type { KitchenAccess } from '@/lib/auth/guard';
+import { getEnv } from '@/lib/env';
+import { notFound, unprocessable } from '@/lib/http/errors';
+
+/**
+ * Push services of the browsers in use (Chrome/Android and Samsung via FCM, Firefox, Edge, Safari).
+ * The worker POSTs to a subscription's endpoint, so endpoints are limited to these hosts (and to
+ * loopback while the local push fake is trusted) rather than any address a client names.
+ */
+export const PUSH_SERVICE_HOST_SUFFIXES = ['fcm.googleapis.com', 'android.googleapis.com', 'push.services.mozilla.com', 'notify.windows.com', 'push.apple.com'];
+
+export function isAllowedEndpoint(endpoint: string, fakeTrusted = Boolean(getEnv().PUSH_FAKE_CA)): boolean {
+  let url: URL;
+  try {
+    url = new URL(endpoint);
+  } catch {
+    return false;
+  }
+  if (url.protocol !== 'https:') return false;
+  const host = url.hostname.toLowerCase();
+  if (fakeTrusted && (host === '127.0.0.1' || host === 'localhost' || host === '[::1]')) return true;
+  return PUSH_SERVICE_HOST_SUFFIXES.some((s) => host === s || host.endsWith(`.${s}`));
+}
+
+export function describeSubscription(s: PushSubscription) {
+  return { id: s.id, endpointHost: new URL(s.endpoint).host, createdAt: s.createdAt.toISOString(), lastSuccessAt: s.lastSuccessAt?.toISOString() ?? null };
+}
+
+/** Saves the caller's subscription for this kitchen's alerts; the same endpoint again updates it (the browser re-subscribed). */
+export async function saveSubscription(access: KitchenAccess, input: { endpoint: string; keys: { p256dh: string; auth: string } }) {
+  if (!isAllowedEndpoint(input.endpoint)) throw unprocessable('This push service is not one we send to.', { endpoint: 'Use the subscription your browser made (an https address of its push service).' });
+  const { em } = access;
+  const existing = await em.findOne(PushSubscriptionSchema, { endpoint: input.endpoint });
+  if (existing) {
+    existing.user = access.user;
+    existing.kitchen = access.kitchen;
+    existing.p256dh = input.keys.p256dh;
+    existing.auth = input.keys.auth;
+    existing.failures = 0;
+    await em.flush();
+    return { created: false, subscription: describeSubscription(existing) };
+  }
+  const s = em.create(PushSubscriptionSchema, { user: access.user, kitchen: access.kitchen, endpoint: input.endpoint, p256dh: input.keys.p256dh, auth: input.keys.auth, lastSuccessAt: null, failures: 0 });
+  await em.flush();
+  return { created: true, subscription: describeSubscription(s) };
+}
+
+export async function listOwnSubscriptions(access: KitchenAccess) {
+  const rows = await access.em.find(PushSubscriptionSchema, { user: access.user.id, kitchen: access.kitchen.id }, { orderBy: { createdAt: 'asc' } });
+  return rows.map(describeSubscription);
+}
+
+/** Removes one of the caller's own subscriptions (someone else's is "not found"). */
+export async function removeSubscription(access: KitchenAccess, id: string) {
+  const s = /^[0-9a-f-]{36}$/i.test(id) ? await access.em.findOne(PushSubscriptionSchema, { id, user: access.user.id, kitchen: access.kitchen.id }) : null;
+  if (!s) throw notFound('Subscription');
+  await access.em.removeAndFlush(s);
+}
+
+export type Audience = 'kitchen' | 'leads';
+
+/** Subscriptions an alert goes to: everyone subscribed to the kitchen, or only its leads. */
+export async function audienceSubscriptions(em: EntityManager, kitchenId: string, audience: Audience): Promise<PushSubscription[]> {
+  const subs = await em.find(PushSubscriptionSchema, { kitchen: kitchenId }, { populate: ['user'] });
+  if (audience === 'kitchen') return subs;
+  const leads = await em.find(MembershipSchema, { kitchen: kitchenId, role: 'lead' });
+  const leadIds = new Set(leads.map((m) => m.user.id));
+  return subs.filter((s) => leadIds.has(s.user.id));
+}
