@@ -262,6 +262,8 @@ export function loadValue(m: PModel, b: PBatch, doneMs: number): number {
 export interface EvaluatorStats {
   sims: number;
   simSteps: number;
+  /** Wall time spent inside the simulator [ms]. */
+  simMs?: number;
   cacheHits: number;
 }
 
@@ -338,7 +340,10 @@ export class CookerEvaluator {
     const weather = this.c.raw.weather.slice(fromIdx, toIdx);
     this.stats.sims++;
     this.stats.simSteps += weather.length;
-    return this.simulate(this.c.raw.spec, weather, { stepS: 60, initialStoreTempC: initialC, altitudeM: this.m.problem.altitudeM, loads });
+    const t = performance.now();
+    const r = this.simulate(this.c.raw.spec, weather, { stepS: 60, initialStoreTempC: initialC, altitudeM: this.m.problem.altitudeM, loads });
+    this.stats.simMs = (this.stats.simMs ?? 0) + performance.now() - t;
+    return r;
   }
 
   /** The store trajectory with no batches at all (whole weather). */
