@@ -59,7 +59,7 @@ export function buildOpenApi(operations: Operation[], info: { version: string; s
         ? { description: 'Success', content: { 'application/json': { schema: toSchema(op.response) } } }
         : { description: 'Success' },
     };
-    for (const code of new Set([...(op.body ? [400, 413, 415, 422] : []), ...(op.roles.length ? [401, 403, 404] : []), ...(op.auth ? [401] : []), ...(op.errors ?? [])])) {
+    for (const code of new Set([...(op.body ? [400, 413, 422] : []), ...(op.body && (op.bodyType ?? 'application/json') === 'application/json' ? [415] : []), ...(op.roles.length ? [401, 403, 404] : []), ...(op.auth ? [401] : []), ...(op.errors ?? [])])) {
       responses[String(code)] = { description: HTTP_TEXT[code] ?? 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } };
     }
     (paths[op.path] ??= {})[op.method] = {

@@ -18,6 +18,9 @@ import type { PushDelivery } from '../../lib/fakes/push';
  */
 export async function publishPlanFor(em: EntityManager, kitchenId: string, date = localDateString(Date.now(), 'Africa/Ouagadougou')): Promise<{ kitchen: Kitchen; plan: Plan; cookerId: string; date: string; slots: PlannerResult['slots'] }> {
   const kitchen = await em.findOneOrFail(KitchenSchema, { id: kitchenId }, { populate: ['organisation'] });
+  // No forecast is stored for a test kitchen: plan under a clear sky all year (not a monthly clearness),
+  // so the day has the sun these tests count on.
+  kitchen.clearness = Array<number>(12).fill(1);
   let cooker = await em.findOne(CookerSchema, { kitchen, name: 'Dish 1 (sunflower store)' });
   if (!cooker) {
     const { customMediumId: _c, pots, ...rest } = DEMO_COOKERS.baobab![0]!;
