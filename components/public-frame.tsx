@@ -1,8 +1,10 @@
 import { LanguagePicker } from './language-picker';
+import { IntlProvider } from './intl-provider';
 
 /** Frame for pages seen before signing in. */
-export function PublicFrame({ title, tagline, children }: { title: string; tagline: string; children: React.ReactNode }) {
+export async function PublicFrame({ title, tagline, children }: { title: string; tagline: string; children: React.ReactNode }) {
   return (
+    <IntlProvider>
     <main id="main" className="mx-auto flex min-h-screen max-w-md flex-col justify-center gap-6 px-4 py-8">
       <div className="flex items-center justify-between">
         <p className="flex items-center gap-2 text-xl font-bold">
@@ -17,5 +19,6 @@ export function PublicFrame({ title, tagline, children }: { title: string; tagli
         {children}
       </section>
     </main>
+    </IntlProvider>
   );
 }

@@ -1,6 +1,6 @@
 'use client';
 
-import { useTranslations } from 'next-intl';
+import { useTranslations } from './mini-intl';
 import type { SafetyNote } from '@/lib/safety/notes';
 import { usePrefs } from './prefs';
 

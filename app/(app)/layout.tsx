@@ -2,6 +2,7 @@ import { getLocale, getTranslations } from 'next-intl/server';
 import { getPageViewer } from '@/lib/auth/page';
 import { getVisibleKitchens } from '@/lib/auth/guard';
 import { AppShell, type NavItem } from '@/components/app-shell';
+import { IntlProvider } from '@/components/intl-provider';
 import { getEnv } from '@/lib/env';
 
 export const dynamic = 'force-dynamic';
@@ -19,6 +20,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
   nav.push({ href: '/settings', key: 'settings' });
   if (getEnv().devTools) nav.push({ href: '/dev/mailbox', key: 'mailbox' }, { href: '/dev/push', key: 'push' });
   return (
+    <IntlProvider>
     <AppShell
       user={{ name: viewer.user.name, role: t(top) }}
       nav={nav}
@@ -27,5 +29,6 @@ export default async function AppLayout({ children }: { children: React.ReactNod
     >
       {children}
     </AppShell>
+    </IntlProvider>
   );
 }

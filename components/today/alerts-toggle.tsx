@@ -1,6 +1,6 @@
 'use client';
 
-import { useTranslations } from 'next-intl';
+import { useTranslations } from '../mini-intl';
 import { useEffect, useState } from 'react';
 
 type State = 'unknown' | 'unsupported' | 'denied' | 'off' | 'on' | 'busy';

@@ -1,6 +1,6 @@
 'use client';
 
-import { useTranslations } from 'next-intl';
+import { useTranslations } from '../mini-intl';
 import { useId, useState } from 'react';
 import { fToC } from '@/lib/units';
 import { usePrefs } from '../prefs';

@@ -1,6 +1,6 @@
 'use client';
 
-import { useFormatter, useTranslations } from 'next-intl';
+import { useFormatter, useTranslations } from '../mini-intl';
 import { useState } from 'react';
 import { SafetyList } from '../safety-list';
 import { usePrefs } from '../prefs';

@@ -1,6 +1,6 @@
 'use client';
 
-import { useFormatter, useTranslations } from 'next-intl';
+import { useFormatter, useTranslations } from '../mini-intl';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { TodayCooker, TodayView as TodayData, TodayWarning } from '@/lib/cooks/today';
 import { deleteEntry, flushOutbox, listEntries, newEntry, putEntry, type OutboxEntry } from '@/lib/client/outbox';

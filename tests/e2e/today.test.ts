@@ -151,9 +151,10 @@ describe('Today page on a phone', () => {
     console.log(`[today] first-load JS ${kb(today).toFixed(1)} kB gzip (${today.length} files); the signed-in home page ${kb(home).toFixed(1)} kB; the Today page's own ${kb(own).toFixed(1)} kB:`);
     for (const s of today) console.log(`  ${(s.gz / 1024).toFixed(1).padStart(6)} kB ${s.url}`);
     expect(today.some((s) => /chart|fullcalendar/i.test(s.url))).toBe(false);
-    // The budget is 150 kB; React 19 + the Next.js 16 runtime + next-intl + the app shell already take about
-    // 148 kB on every signed-in page, so the page itself must stay lean (see the report in DEVELOPERS.md).
-    expect(kb(own)).toBeLessThan(12);
-    expect(kb(today)).toBeLessThan(165);
+    // The budget is 150 kB gzip (cooks are on cheap phones and weak links). The Today page lives outside the
+    // app shell and formats its messages with components/mini-intl.tsx, so next-intl's client runtime and
+    // the shell do not load here (see DEVELOPERS.md).
+    expect(kb(today)).toBeLessThan(150);
+    expect(today.some((s) => /next-intl/i.test(s.url))).toBe(false);
   });
 });
