@@ -58,11 +58,12 @@ describe('cooker register', () => {
   it('a cook sees the predicted day of a demo cooker but no form', async () => {
     const page = await browser.newPage({ viewport: { width: 360, height: 740 }, isMobile: true });
     await signIn(page, 'cook2.tamarind@example.org');
-    await openFirstKitchenCookers(page).catch(async () => {
-      // On a phone the cookers link sits in the collapsed menu.
-      await page.getByRole('button', { name: 'Menu' }).click();
-      await page.getByRole('link', { name: 'Cookers' }).first().click();
-    });
+    // A cook's kitchen card opens Today; its header links to the kitchen, whose tabs lead to the cookers.
+    await page.locator('ul li h2 a').first().click();
+    await page.waitForURL(/\/today$/);
+    await page.getByRole('link', { name: 'Tamarind Court Shelter Canteen' }).click();
+    await page.getByRole('link', { name: 'Cookers' }).first().click();
+    await page.getByRole('heading', { name: 'Cookers', level: 1 }).waitFor();
     await page.getByRole('link', { name: /Open Trough/ }).click();
     await page.getByText('Store at midnight').waitFor();
     expect(await page.getByRole('button', { name: 'Save the cooker' }).count()).toBe(0);
