@@ -8,7 +8,8 @@ import { toApertureGeometry, toCookerSpec } from '@/lib/cookers/spec';
 import { prepareDay } from '@/lib/prediction/predict-day';
 import { checkSlotMove, planDay, type PlannerBatch, type PlannerProblem, type PlannerResult } from '@/lib/planner';
 import { simulateCooker, type PotLoad } from '@/lib/thermal';
-import { compareWithAllOnWood, planBackupFuel, STOVES, type BackupBatchInput, type FuelTotals, type StoveId } from '@/lib/fuel';
+import { compareWithAllOnWood, planBackupFuel, STOVES, type FuelTotals, type StoveId } from '@/lib/fuel';
+import { toBackupBatchInput } from '@/lib/fuel/plan';
 import { zonedTimeToUtcMs } from '@/lib/time';
 import { getActiveCookers, getMenuLines, hm, splitIntoBatches, type MenuBatch } from '@/lib/menus';
 import { getPlanningWeather, kitchenSite } from './weather';
@@ -122,7 +123,6 @@ function cookerViews(prepared: Prepared, result: PlannerResult): PlanCookerView[
 export function fuelView(kitchen: Kitchen, menuBatches: MenuBatch[], backupIds: string[]): PlanFuelView {
   const fuels = kitchen.planning.fuels;
   const onHand = new Map(fuels.map((f) => [f.stoveId, f]));
-  const input = (b: MenuBatch): BackupBatchInput => ({ ...b, dishName: b.dishName, servings: b.servings });
   const stoveFor = (b: MenuBatch) => (onHand.has(b.backupStove) ? b.backupStove : (fuels[0]?.stoveId ?? 'lpg')) as StoveId;
   const opts = (stoveId: StoveId) => {
     const f = onHand.get(stoveId);
@@ -142,7 +142,7 @@ export function fuelView(kitchen: Kitchen, menuBatches: MenuBatch[], backupIds: 
   for (const b of backup) groups.set(stoveFor(b), [...(groups.get(stoveFor(b)) ?? []), b]);
   const view: PlanFuelView = { currency: kitchen.planning.currency, perBatch: [], byFuel: {}, total: { cost: 0, co2Kg: 0, co2BiogenicKg: 0, usefulKWh: 0 }, allOnWood: { woodKg: 0, co2BiogenicKg: 0, cost: null }, solarShareOfHeat: 0 };
   for (const [stoveId, list] of groups) {
-    const r = planBackupFuel(list.map(input), opts(stoveId));
+    const r = planBackupFuel(list.map(toBackupBatchInput), opts(stoveId));
     for (const bf of r.perBatch) {
       view.perBatch.push({ batchId: bf.batchId, stoveId, fuelId: bf.fuelId, amount: bf.amount, unit: bf.unit, cost: bf.cost, co2Kg: bf.co2Kg, co2BiogenicKg: bf.co2BiogenicKg, usefulKWh: bf.heat.usefulJ / 3.6e6 });
       const f = (view.byFuel[bf.fuelId] ??= { amount: 0, unit: bf.unit, cost: 0, co2Kg: 0, co2BiogenicKg: 0 });
@@ -158,7 +158,7 @@ export function fuelView(kitchen: Kitchen, menuBatches: MenuBatch[], backupIds: 
   }
   if (menuBatches.length) {
     const wood = onHand.get('three-stone-wood') ?? onHand.get('improved-wood');
-    const cmp = compareWithAllOnWood(menuBatches.map(input), ids, { ...opts(stoveFor(menuBatches[0]!)), prices: wood?.price !== undefined ? { wood: wood.price } : {} });
+    const cmp = compareWithAllOnWood(menuBatches.map(toBackupBatchInput), ids, { ...opts(stoveFor(menuBatches[0]!)), prices: wood?.price !== undefined ? { wood: wood.price } : {} });
     const woodTotals: FuelTotals = cmp.allOnWood;
     view.allOnWood = { woodKg: woodTotals.amountByFuel.wood ?? 0, co2BiogenicKg: woodTotals.co2BiogenicKg, cost: woodTotals.cost };
     view.solarShareOfHeat = cmp.solarShareOfHeat;
