@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
+import { launchBrowser, SCREENSHOT_DIR, signInThroughPage } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../../lib/demo/seed';
 
 let browser: Browser;
@@ -18,14 +18,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(`${baseUrl}/`);
-}
-
+const signIn = (page: Page, email: string) => signInThroughPage(page, baseUrl, email, DEMO_PASSWORD);
 async function openFirstKitchenCookers(page: Page) {
   await page.locator('ul li h2 a').first().click();
   await page.getByRole('link', { name: 'Cookers' }).first().click();

@@ -11,7 +11,7 @@ import type { Browser, Page } from 'playwright-core';
 import { KitchenSchema } from '../../entities';
 import { refreshKitchenForecast } from '../../lib/forecast/refresh';
 import { DEMO_KITCHENS, DEMO_PASSWORD } from '../../lib/demo/seed';
-import { launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
+import { launchBrowser, SCREENSHOT_DIR, signInThroughPage } from '../helpers/browser';
 import { closeTestOrm, testOrm } from '../helpers/fixtures';
 
 let browser: Browser;
@@ -30,14 +30,7 @@ afterAll(async () => {
   await closeTestOrm();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(`${baseUrl}/`);
-}
-
+const signIn = (page: Page, email: string) => signInThroughPage(page, baseUrl, email, DEMO_PASSWORD);
 describe('forecast page', () => {
   it('a kitchen lead sees the forecast for three days and the chart, and a bad file is explained line by line', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });

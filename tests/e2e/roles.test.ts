@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
+import { launchBrowser, SCREENSHOT_DIR, signInThroughPage } from '../helpers/browser';
 import { DEMO_KITCHENS, DEMO_PASSWORD } from '../../lib/demo/seed';
 
 let browser: Browser;
@@ -20,11 +20,7 @@ afterAll(async () => {
 });
 
 async function signIn(page: Page, email: string) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(`${baseUrl}/`);
+  await signInThroughPage(page, baseUrl, email, DEMO_PASSWORD);
   await page.getByRole('heading', { name: 'Your kitchens' }).waitFor();
   await page.locator('ul li h2').first().waitFor();
 }

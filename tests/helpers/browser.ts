@@ -1,4 +1,4 @@
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 
@@ -20,4 +20,13 @@ export async function launchBrowser(): Promise<Browser> {
       '--disable-sync',
     ],
   });
+}
+
+/** Signs in through the sign-in page as a person would and waits for the home page. */
+export async function signInThroughPage(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail address').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(`${baseUrl}/`);
 }
