@@ -23,8 +23,15 @@ npx tsx scripts/migrate.ts
 if [ "$HEARTHCAST_DEMO" = "1" ]; then npx tsx scripts/seed.ts; fi
 ensure_build
 
+# Job control: each background service gets its own process group, so stopping start.sh (Ctrl-C or a
+# plain kill) stops the services and the node processes npx starts under them, leaving nothing behind.
+set -m
 pids=()
-cleanup() { for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done; wait 2>/dev/null || true; }
+cleanup() {
+  trap - EXIT INT TERM
+  for p in "${pids[@]}"; do kill -TERM -- "-$p" 2>/dev/null || true; done
+  wait 2>/dev/null || true
+}
 trap cleanup EXIT INT TERM
 
 if [ "${START_FAKES:-1}" = "1" ]; then
