@@ -3,26 +3,11 @@
 import { useFormatter, useTranslations } from 'next-intl';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { apiFetch } from '@/lib/client/api';
+import type { describeDish } from '@/lib/dishes';
 import { Field, Status } from './field';
 
-export interface DishRow {
-  id: string;
-  name: string;
-  method: 'boil' | 'simmer' | 'steam' | 'bake' | 'fry';
-  servingsPerBatch: number;
-  foodKgPerServing: number;
-  waterKgPerServing: number;
-  foodCpJPerKgK: number;
-  litresPerServing: number;
-  minPotTempC: number;
-  holdMin: number;
-  safeCoreTempC: number;
-  lidOn: boolean;
-  backupStove: string;
-  notes: string | null;
-  heatUpKWh: number;
-  batchHeatKWh: number;
-}
+/** A dish as the API returns it (lib/dishes describeDish). */
+export type DishRow = ReturnType<typeof describeDish>;
 
 const METHODS = ['boil', 'simmer', 'steam', 'bake', 'fry'] as const;
 const STOVES = ['lpg', 'three-stone-wood', 'improved-wood', 'charcoal', 'kerosene-pressure', 'electric-hotplate', 'induction'];
