@@ -45,7 +45,7 @@ export function CookerApiKeys({ kitchenId, cookerId }: { kitchenId: string; cook
     await load();
   }
 
-  const date = (iso: string) => format.dateTime(new Date(iso), { dateStyle: 'medium', timeStyle: 'short' });
+  const date = (iso: string) => format.dateTime(new Date(iso), { dateStyle: 'medium', timeStyle: 'short', timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone });
   return (
     <section aria-labelledby="api-keys-title" className="card flex flex-col gap-3">
       <h2 id="api-keys-title" className="text-lg font-bold">{t('title')}</h2>

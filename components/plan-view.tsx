@@ -206,7 +206,7 @@ export function PlanView({ kitchenId, initialDate, timeZone, canEdit }: { kitche
             )}
             <span className="rounded-full bg-clay-100 px-3 py-1 font-semibold">
               {plan.status === 'draft' ? t('draft') : t('published', { version: plan.version })}
-              {plan.publishedAt ? ` · ${t('publishedOn', { when: format.dateTime(new Date(plan.publishedAt), { dateStyle: 'medium', timeStyle: 'short' }) })}` : ''}
+              {plan.publishedAt ? ` · ${t('publishedOn', { when: format.dateTime(new Date(plan.publishedAt), { dateStyle: 'medium', timeStyle: 'short', timeZone }) })}` : ''}
             </span>
             <span>{t('weather', { source: plan.weatherSource })}</span>
           </div>

@@ -17,6 +17,8 @@ const schema = z.object({
   DEV_TOOLS: z.enum(['0', '1']).optional(),
   /** Cookie Secure flag: on when APP_URL is https unless set. */
   COOKIE_SECURE: z.enum(['0', '1']).optional(),
+  /** 1 behind a reverse proxy that appends the client address to X-Forwarded-For (sign-in throttling per address). */
+  TRUST_PROXY: z.enum(['0', '1'], { message: 'TRUST_PROXY is 0 or 1' }).default('0'),
   /** Base URL of the Open-Meteo forecast API (or the local fake, the default). */
   FORECAST_URL: z.string().url('FORECAST_URL must be a URL such as https://api.open-meteo.com').default('http://127.0.0.1:4011'),
   /** Optional key of the commercial forecast endpoint, sent as the `apikey` query parameter. */

@@ -18,7 +18,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
   if (roles.has('coordinator')) nav.push({ href: '/overview', key: 'overview' }, { href: '/organisation', key: 'organisation' });
   if (roles.has('coordinator') || roles.has('lead')) nav.push({ href: '/people', key: 'people' });
   nav.push({ href: '/settings', key: 'settings' });
-  if (getEnv().devTools) nav.push({ href: '/dev/mailbox', key: 'mailbox' }, { href: '/dev/push', key: 'push' });
+  if (getEnv().devTools && roles.has('coordinator')) nav.push({ href: '/dev/mailbox', key: 'mailbox' }, { href: '/dev/push', key: 'push' });
   return (
     <IntlProvider>
     <AppShell

@@ -1,3 +1,4 @@
+import { LockMode } from '@mikro-orm/core';
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import {
@@ -12,7 +13,7 @@ import {
   type User,
 } from '@/entities';
 import { hashPassword, verifyPassword } from '@/lib/auth/password';
-import { assertNotThrottled, clearFailures, recordFailure } from '@/lib/auth/throttle';
+import { beginAttempt, clearFailures, endAttemptWithSuccess } from '@/lib/auth/throttle';
 import { createOneTimeToken, hashToken } from '@/lib/auth/tokens';
 import { canInviteRole } from '@/lib/auth/permissions';
 import { rolesForKitchen, requireCoordinatorOrg, type Viewer } from '@/lib/auth/guard';
@@ -28,15 +29,12 @@ const RESET_TTL_MS = 3600 * 1000;
 /** The one message for a failed sign-in: it never says whether the address is registered. */
 export const SIGN_IN_FAILED = 'The e-mail address or the password is not right.';
 
-export async function signIn(em: EntityManager, email: string, password: string, ip: string): Promise<User> {
-  await assertNotThrottled(em, email, ip);
+export async function signIn(em: EntityManager, email: string, password: string, ip: string | null): Promise<User> {
+  const attempt = await beginAttempt(em, email, ip);
   const user = await em.findOne(UserSchema, { email });
   const ok = await verifyPassword(password, user?.passwordHash ?? null);
-  if (!user || !ok) {
-    await recordFailure(em, email, ip);
-    throw unauthorized(SIGN_IN_FAILED);
-  }
-  await clearFailures(em, email);
+  if (!user || !ok) throw unauthorized(SIGN_IN_FAILED); // the attempt stays counted as a failure
+  await endAttemptWithSuccess(em, email, attempt);
   return user;
 }
 
@@ -82,7 +80,7 @@ export async function createInvitation(
 export async function acceptInvitation(em: EntityManager, input: { token: string; name: string; password: string }, locale: Locale = 'en'): Promise<User> {
   const passwordHash = await hashPassword(input.password);
   return em.transactional(async (tx) => {
-    const inv = await tx.findOne(InvitationSchema, { tokenHash: hashToken(input.token) }, { populate: ['organisation', 'kitchen'], lockMode: 4 /* pessimistic write */ });
+    const inv = await tx.findOne(InvitationSchema, { tokenHash: hashToken(input.token) }, { populate: ['organisation', 'kitchen'], lockMode: LockMode.PESSIMISTIC_WRITE /* waits; 4 would be SKIP LOCKED */ });
     if (!inv || inv.acceptedAt || inv.expiresAt.getTime() < Date.now()) {
       throw new HttpError(410, 'link_expired', 'This invitation link is no longer valid. Ask for a new invitation.');
     }

@@ -60,6 +60,9 @@ export async function getVisibleKitchens(viewer: Viewer): Promise<Kitchen[]> {
 
 const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
+/** True for a well-formed UUID: anything else from a URL is a 404 before it reaches PostgreSQL (which would refuse it). */
+export const isUuid = (id: string) => UUID_RE.test(id);
+
 /**
  * The one guard for kitchen-scoped work: 401 without a session; 404 when the kitchen does not
  * exist or belongs to someone else (existence is not revealed); 403 when the viewer sees the
@@ -67,7 +70,7 @@ const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/
  */
 export async function requireKitchen(kitchenId: string, action: Action, viewer?: Viewer): Promise<KitchenAccess> {
   const v = viewer ?? (await requireViewer());
-  if (!UUID_RE.test(kitchenId)) throw notFound('Kitchen');
+  if (!isUuid(kitchenId)) throw notFound('Kitchen');
   const kitchen = await v.em.findOne(KitchenSchema, { id: kitchenId }, { populate: ['organisation'] });
   if (!kitchen) throw notFound('Kitchen');
   const roles = rolesForKitchen(v.memberships, kitchen);

@@ -1,3 +1,4 @@
+import { isUuid } from '@/lib/auth/guard';
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { CookerSchema, StorageMediumSchema, type Cooker, type CookerPot, type Kitchen } from '@/entities';
@@ -69,7 +70,7 @@ export async function listCookers(access: KitchenAccess) {
 }
 
 export async function getCooker(access: KitchenAccess, cookerId: string): Promise<Cooker> {
-  const c = /^[0-9a-f-]{36}$/i.test(cookerId)
+  const c = isUuid(cookerId)
     ? await access.em.findOne(CookerSchema, { id: cookerId, kitchen: access.kitchen.id, archived: false }, { populate: ['customMedium', 'kitchen'] })
     : null;
   if (!c) throw notFound('Cooker');

@@ -1,3 +1,4 @@
+import { isUuid } from '@/lib/auth/guard';
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { CookerApiKeySchema, type CookerApiKey } from '@/entities';
@@ -34,7 +35,7 @@ export async function createApiKey(access: KitchenAccess, cookerId: string, labe
 export async function revokeApiKey(access: KitchenAccess, cookerId: string, keyId: string) {
   const { em, kitchen } = access;
   const cooker = await getCooker(access, cookerId);
-  const row = /^[0-9a-f-]{36}$/i.test(keyId) ? await em.findOne(CookerApiKeySchema, { id: keyId, cooker: cooker.id }) : null;
+  const row = isUuid(keyId) ? await em.findOne(CookerApiKeySchema, { id: keyId, cooker: cooker.id }) : null;
   if (!row) throw notFound('API key');
   if (!row.revokedAt) {
     row.revokedAt = new Date();

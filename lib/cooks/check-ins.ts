@@ -1,3 +1,4 @@
+import { zonedDayBoundsMs } from '@/lib/time';
 import { randomUUID } from 'node:crypto';
 import { CheckInSchema, PlanSchema, type CheckIn } from '@/entities';
 import type { KitchenAccess } from '@/lib/auth/guard';
@@ -34,6 +35,9 @@ export async function recordCheckIn(access: KitchenAccess, input: CheckInInput, 
     const batches = plan.batches as MenuBatch[];
     const batch = batches.find((b) => b.id === input.batchId);
     if (!batch) throw notFound('Batch');
+    // A phone whose clock fell back to an earlier day would mark the pot started long ago and "ready".
+    const dayStartMs = zonedDayBoundsMs(plan.date, kitchen.timeZone)[0];
+    if (atMs < dayStartMs - CLOCK_SKEW_MS) throw unprocessable('That time is before the plan’s day; check the phone’s clock.', { at: 'Before the day of the plan.' });
     const slot = (plan.result as PlannerResult).slots.find((s) => s.batchId === input.batchId);
     if (!slot && input.kind === 'skipped') throw unprocessable('This batch is already on backup fuel.', { batchId: 'Planned on backup fuel; nothing to skip.' });
     const c = tx.create(CheckInSchema, { id: randomUUID(), kitchen, planId: plan.id, date: plan.date, batchId: batch.id, cookerId: slot?.cookerId ?? null, kind: input.kind, at: new Date(atMs), user });

@@ -1,3 +1,4 @@
+import { isUuid } from '@/lib/auth/guard';
 import { randomUUID } from 'node:crypto';
 import Papa from 'papaparse';
 import type { EntityManager } from '@mikro-orm/postgresql';
@@ -57,7 +58,7 @@ export async function listDishes(em: EntityManager, organisationId: string) {
 }
 
 export async function getDish(em: EntityManager, organisationId: string, dishId: string): Promise<Dish> {
-  const d = /^[0-9a-f-]{36}$/i.test(dishId) ? await em.findOne(DishSchema, { id: dishId, organisation: organisationId, archived: false }) : null;
+  const d = isUuid(dishId) ? await em.findOne(DishSchema, { id: dishId, organisation: organisationId, archived: false }) : null;
   if (!d) throw notFound('Dish');
   return d;
 }

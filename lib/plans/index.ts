@@ -1,3 +1,4 @@
+import { isUuid } from '@/lib/auth/guard';
 import { randomUUID } from 'node:crypto';
 import { LockMode, type EntityManager } from '@mikro-orm/postgresql';
 import { PlanSchema, type Cooker, type Kitchen, type Plan } from '@/entities';
@@ -234,7 +235,11 @@ export async function solveDraft(access: KitchenAccess, date: string, timeLimitS
 export async function createDraft(em: EntityManager, kitchen: Kitchen, actorId: string | null, date: string, timeLimitS: number): Promise<Plan> {
   const prepared = await prepareProblem(em, kitchen, date, timeLimitS);
   if (!prepared.problem.cookers.length) throw unprocessable('This kitchen has no cookers yet. Register a cooker first.', { cookers: 'No cookers.' });
-  const result = await planDay(prepared.problem);
+  const result = await planDay(prepared.problem).catch((err: unknown) => {
+    // The planner checks its problem (e.g. a dish served before the shift starts): say so, do not fail.
+    if (err instanceof RangeError) throw unprocessable(`The day cannot be planned as entered: ${err.message}`, { date: err.message });
+    throw err;
+  });
   const version = await nextPublishedVersion(em, kitchen.id, date);
   return em.transactional(async (tx) => {
     await lockKitchenPlans(tx, kitchen.id);
@@ -260,7 +265,7 @@ export async function createDraft(em: EntityManager, kitchen: Kitchen, actorId: 
 }
 
 export async function getPlan(access: KitchenAccess, planId: string): Promise<Plan> {
-  const p = /^[0-9a-f-]{36}$/i.test(planId) ? await access.em.findOne(PlanSchema, { id: planId, kitchen: access.kitchen.id }, { populate: ['kitchen'] }) : null;
+  const p = isUuid(planId) ? await access.em.findOne(PlanSchema, { id: planId, kitchen: access.kitchen.id }, { populate: ['kitchen'] }) : null;
   if (!p) throw notFound('Plan');
   return p;
 }
@@ -314,6 +319,7 @@ export async function moveSlot(access: KitchenAccess, planId: string, move: { ba
 
 /** Publishes a draft as the next numbered version; the previous published version is superseded. */
 export async function publishPlan(access: KitchenAccess, planId: string) {
+  await getPlan(access, planId); // 404 for an id that is not this kitchen's plan (or not an id at all)
   return describePlan(await publishDraft(access.em, access.kitchen, access.user.id, planId));
 }
 

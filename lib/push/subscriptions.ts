@@ -1,3 +1,4 @@
+import { isUuid } from '@/lib/auth/guard';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { MembershipSchema, PushSubscriptionSchema, type PushSubscription } from '@/entities';
 import type { KitchenAccess } from '@/lib/auth/guard';
@@ -54,7 +55,7 @@ export async function listOwnSubscriptions(access: KitchenAccess) {
 
 /** Removes one of the caller's own subscriptions (someone else's is "not found"). */
 export async function removeSubscription(access: KitchenAccess, id: string) {
-  const s = /^[0-9a-f-]{36}$/i.test(id) ? await access.em.findOne(PushSubscriptionSchema, { id, user: access.user.id, kitchen: access.kitchen.id }) : null;
+  const s = isUuid(id) ? await access.em.findOne(PushSubscriptionSchema, { id, user: access.user.id, kitchen: access.kitchen.id }) : null;
   if (!s) throw notFound('Subscription');
   await access.em.removeAndFlush(s);
 }

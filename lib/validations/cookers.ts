@@ -1,3 +1,4 @@
+import { localDate } from './menus';
 import { z } from 'zod';
 import { COOKER_KINDS, TRACKING_MODES } from '@/entities/cooker';
 import { hasMedium, listMediumIds } from '@/lib/materials';
@@ -109,6 +110,6 @@ export const customMediumSchema = z.strictObject({
 });
 
 export const predictionQuerySchema = z.strictObject({
-  date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD.').optional(),
+  date: localDate.optional(),
   initialStoreTempC: z.coerce.number({ message: 'Starting store temperature is a number (°C).' }).min(-20).max(400).optional(),
 });

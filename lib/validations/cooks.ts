@@ -1,3 +1,4 @@
+import { localDate } from './menus';
 import { z } from 'zod';
 import { CHECK_IN_KINDS } from '@/entities/check-in';
 
@@ -71,4 +72,4 @@ export const pushSubscriptionSchema = z.strictObject({
   expirationTime: z.number().nullable().optional(),
 });
 
-export const readingsQuery = z.strictObject({ date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD.').optional() });
+export const readingsQuery = z.strictObject({ date: localDate.optional() });

@@ -41,6 +41,12 @@ describe('cooker register', () => {
     expect((await c[who]!.post(base(), valid())).status).toBe(status);
   });
 
+  it('ids that are not UUIDs are 404, not a database error', async () => {
+    expect((await c.cookA!.get(`${base()}/${'0'.repeat(36)}`)).status).toBe(404);
+    expect((await c.cookA!.get(`${base()}/${'-'.repeat(36)}`)).status).toBe(404);
+    expect((await c.leadA!.post(`/api/v1/kitchens/${w.kitchenA.id}/plans/abc/publish`, {})).status).toBe(404);
+  });
+
   it('other kitchens cannot read it; its own cook can', async () => {
     expect((await c.leadB!.get(`${base()}/${cookerId}`)).status).toBe(404);
     expect((await c.otherLead!.get(`${base()}/${cookerId}`)).status).toBe(404);

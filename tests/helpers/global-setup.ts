@@ -100,6 +100,8 @@ export default async function setup(project: TestProject) {
       PUSH_FAKE_CA: push.caPath,
       PUSH_FAKE_DIR: pushFakeDir,
       DEV_TOOLS: '1',
+      // The tests play a reverse proxy: each client sends its own X-Forwarded-For (tests/helpers/http.ts).
+      TRUST_PROXY: '1',
       SESSION_SECRET: randomBytes(32).toString('base64url'),
       NEXT_TELEMETRY_DISABLED: '1',
     },
