@@ -1,7 +1,7 @@
 import { isUuid } from '@/lib/auth/guard';
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { CookerSchema, StorageMediumSchema, type Cooker, type CookerPot, type Kitchen } from '@/entities';
+import { CookerSchema, StorageMediumSchema, type Cooker, type Kitchen } from '@/entities';
 import type { KitchenAccess, Viewer } from '@/lib/auth/guard';
 import { recordAudit } from '@/lib/audit';
 import { notFound, unprocessable } from '@/lib/http/errors';
@@ -10,7 +10,7 @@ import type { CookerInput } from '@/lib/validations/cookers';
 import { predictDay } from '@/lib/prediction/predict-day';
 import { getWeatherForDay, kitchenSite, weatherMeta } from '@/lib/forecast/weather-for-day';
 import { addDays, localDateString } from '@/lib/time';
-import { toApertureGeometry, toCookerSpec } from './spec';
+import { normalisePots, toApertureGeometry, toCookerSpec } from './spec';
 
 export { toApertureGeometry, toCookerSpec } from './spec';
 
@@ -42,9 +42,6 @@ export function describeCooker(c: Cooker) {
   };
 }
 
-function normalisePots(pots: CookerInput['pots']): CookerPot[] {
-  return pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 }));
-}
 
 /** Checks the medium choice against the organisation's custom media and the medium's limits. */
 async function resolveMediumChoice(em: EntityManager, kitchen: Kitchen, input: Partial<CookerInput>) {

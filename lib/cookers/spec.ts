@@ -1,4 +1,5 @@
-import type { Cooker, StorageMedium as CustomMediumRow } from '@/entities';
+import type { Cooker, CookerPot, StorageMedium as CustomMediumRow } from '@/entities';
+import type { CookerInput } from '@/lib/validations/cookers';
 import type { CookerSpec } from '@/lib/thermal';
 import type { ApertureGeometry } from '@/lib/solar';
 
@@ -27,4 +28,9 @@ export function toCookerSpec(c: Pick<Cooker, 'apertureM2' | 'collectorModel' | '
 
 export function toApertureGeometry(c: Pick<Cooker, 'kind' | 'tracking' | 'tiltDeg' | 'surfaceAzimuthDeg'>): ApertureGeometry {
   return { tracking: c.tracking, tiltDeg: c.tiltDeg, surfaceAzimuthDeg: c.surfaceAzimuthDeg, beamOnly: BEAM_ONLY_KINDS.has(c.kind) };
+}
+
+/** Pots as entered (id and specific heat optional) → as stored: ids pot-1, pot-2…, aluminium 900 J/(kg·K) by default. */
+export function normalisePots(pots: CookerInput['pots']): CookerPot[] {
+  return pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 }));
 }

@@ -1,3 +1,4 @@
+import { normalisePots } from '@/lib/cookers/spec';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { CookerSchema, KitchenSchema, MembershipSchema, OrganisationSchema, UserSchema, type Kitchen, type Locale, type Organisation, type Role } from '@/entities';
 import { hashPassword } from '@/lib/auth/password';
@@ -82,7 +83,7 @@ async function seedDemoCookers(em: EntityManager, kitchens: Record<string, Kitch
     if ((await em.count(CookerSchema, { kitchen })) > 0) continue;
     for (const c of DEMO_COOKERS[slug] ?? []) {
       const { customMediumId: _c, pots, ...rest } = c;
-      em.create(CookerSchema, { ...rest, pots: pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 })), kitchen, customMedium: null, archived: false });
+      em.create(CookerSchema, { ...rest, pots: normalisePots(pots), kitchen, customMedium: null, archived: false });
     }
   }
 }

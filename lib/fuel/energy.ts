@@ -12,45 +12,17 @@
  * Units follow lib/GLOSSARY.md.
  */
 
-/** Specific heat of liquid water [J/(kg·K)] (ASAE S580.1 Cv; standard tables give 4.18–4.22 kJ/(kg·K) over 20–100 °C). */
-export const WATER_CP_J_PER_KG_K = 4186;
-/** Latent heat of vaporisation of water at 100 °C [J/kg] (steam tables, 2257 kJ/kg; secondary). */
-export const WATER_LATENT_J_PER_KG = 2.257e6;
+// Water properties and the boiling point come from the thermal model (one implementation for the
+// planner, the predictions and the backup-fuel estimate): ISO 2533 pressure + Antoine (lib/thermal/boiling.ts).
+export { WATER_CP_J_PER_KG_K } from '@/lib/thermal/boiling';
+export {
+  WATER_LATENT_HEAT_J_PER_KG as WATER_LATENT_J_PER_KG,
+  pressureIsa1975Pa as pressureIsa,
+  waterBoilingPointAntoineC as boilingPointAntoine,
+  boilingPointAtAltitudeC as boilingPointAtAltitude,
+} from '@/lib/thermal/boiling';
 
-/**
- * Atmospheric pressure at altitude from the ISO 2533 standard atmosphere (troposphere):
- * p = 101325·(1 − 2.25577e-5·h)^5.25588 [Pa].
- * @param altitudeM site elevation [m]
- * @returns pressure [Pa]
- */
-export function pressureIsa(altitudeM: number): number {
-  return 101325 * Math.pow(1 - 2.25577e-5 * altitudeM, 5.25588);
-}
-
-/**
- * Boiling point of water at a pressure, from the Antoine equation
- * log10(p/mmHg) = A − B/(C + T) with A = 8.07131, B = 1730.63, C = 233.426 (1–100 °C) and
- * A = 8.14019, B = 1810.94, C = 244.485 (99–374 °C) — the classic constants quoted in handbooks (secondary).
- * @param pressurePa [Pa]
- * @returns boiling point [°C]
- */
-export function boilingPointAntoine(pressurePa: number): number {
-  const pMmHg = pressurePa / 133.322368;
-  const lg = Math.log10(pMmHg);
-  const low = 1730.63 / (8.07131 - lg) - 233.426;
-  if (low <= 100) return low;
-  return 1810.94 / (8.14019 - lg) - 244.485;
-}
-
-/**
- * Boiling point of water at a site elevation: ISA pressure (ISO 2533) + Antoine.
- * About 1 °C lower per ≈ 300 m; reproduces standard tables within ≈ 0.3 °C (REFERENCES.md).
- * @param altitudeM [m]
- * @returns [°C]
- */
-export function boilingPointAtAltitude(altitudeM: number): number {
-  return boilingPointAntoine(pressureIsa(altitudeM));
-}
+import { boilingPointAtAltitudeC as boilingPointAtAltitude, WATER_CP_J_PER_KG_K, WATER_LATENT_HEAT_J_PER_KG as WATER_LATENT_J_PER_KG } from '@/lib/thermal/boiling';
 
 export type CookMethod = 'boil' | 'simmer' | 'steam' | 'bake' | 'fry';
 export const COOK_METHODS: readonly CookMethod[] = ['boil', 'simmer', 'steam', 'bake', 'fry'];

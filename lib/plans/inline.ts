@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import { planDay, type PlannerProblem } from '@/lib/planner';
-import { toCookerSpec } from '@/lib/cookers/spec';
+import { normalisePots, toCookerSpec } from '@/lib/cookers/spec';
 import { unprocessable } from '@/lib/http/errors';
 import type { inlineProblemSchema } from '@/lib/validations/planner';
 
@@ -10,7 +10,7 @@ export async function solveInlineProblem(input: z.infer<typeof inlineProblemSche
     cookers: input.cookers.map((c) => ({
       id: c.id,
       name: c.cooker.name,
-      spec: toCookerSpec({ ...c.cooker, pots: c.cooker.pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 })) }),
+      spec: toCookerSpec({ ...c.cooker, pots: normalisePots(c.cooker.pots) }),
       weather: c.weather.map((s) => ({ t: Date.parse(s.t), gApertureWm2: s.gApertureWm2, tAirC: s.tAirC, ...(s.windMS !== undefined ? { windMS: s.windMS } : {}) })),
       initialStoreTempC: c.initialStoreTempC,
     })),

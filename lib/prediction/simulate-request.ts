@@ -3,7 +3,7 @@ import { resolveWeatherToAperture, type HourlyWeather } from '@/lib/solar';
 import type { WeatherStep } from '@/lib/thermal';
 import { simulateCooker } from '@/lib/thermal';
 import { unprocessable } from '@/lib/http/errors';
-import { toApertureGeometry, toCookerSpec } from '@/lib/cookers/spec';
+import { normalisePots, toApertureGeometry, toCookerSpec } from '@/lib/cookers/spec';
 import type { SimulationInput } from '@/lib/validations/simulations';
 
 /**
@@ -11,7 +11,7 @@ import type { SimulationInput } from '@/lib/validations/simulations';
  * or an inline one, driven by aperture steps or by hourly weather resolved with lib/solar.
  */
 export function runSimulationRequest(input: SimulationInput, stored?: { cooker: Cooker; kitchen: Kitchen }) {
-  const def = stored?.cooker ?? { ...input.cooker!, pots: input.cooker!.pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 })) };
+  const def = stored?.cooker ?? { ...input.cooker!, pots: normalisePots(input.cooker!.pots) };
   const spec = toCookerSpec(def as Cooker, stored?.cooker.customMedium ?? null);
   const site = input.site
     ? { latitudeDeg: input.site.latitude, longitudeDeg: input.site.longitude, altitudeM: input.site.altitudeM }

@@ -1,3 +1,4 @@
+import { normalisePots } from '../../lib/cookers/spec';
 import { randomUUID, createECDH, randomBytes, type ECDH } from 'node:crypto';
 import { request as httpsRequest } from 'node:https';
 import { readFileSync } from 'node:fs';
@@ -24,7 +25,7 @@ export async function publishPlanFor(em: EntityManager, kitchenId: string, date 
   let cooker = await em.findOne(CookerSchema, { kitchen, name: 'Dish 1 (sunflower store)' });
   if (!cooker) {
     const { customMediumId: _c, pots, ...rest } = DEMO_COOKERS.baobab![0]!;
-    cooker = em.create(CookerSchema, { ...rest, pots: pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 })), kitchen, customMedium: null, archived: false });
+    cooker = em.create(CookerSchema, { ...rest, pots: normalisePots(pots), kitchen, customMedium: null, archived: false });
   }
   const dishes = [];
   for (const name of ['Maize porridge', 'Rice']) {

@@ -1,3 +1,4 @@
+import { normalisePots } from '../../lib/cookers/spec';
 import { randomUUID } from 'node:crypto';
 import { MikroORM, type EntityManager } from '@mikro-orm/postgresql';
 import { inject } from 'vitest';
@@ -82,7 +83,7 @@ export async function addDemoCookers(kitchen: Kitchen, slug = 'baobab'): Promise
     e.create(CookerSchema, {
       id,
       ...rest,
-      pots: pots.map((p, i) => ({ ...p, id: p.id ?? `pot-${i + 1}`, cpJPerKgK: p.cpJPerKgK ?? 900 })),
+      pots: normalisePots(pots),
       kitchen: e.getReference(KitchenSchema, kitchen.id),
       customMedium: null,
       archived: false,
