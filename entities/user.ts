@@ -1,7 +1,7 @@
 import { EntitySchema } from '@mikro-orm/core';
 import { baseProperties, type Base, type Locale, type TemperatureUnit } from './base';
 
-export interface User extends Base {
+export interface User extends Base<'sessionVersion'> {
   /** Stored lower-case; unique. */
   email: string;
   /** bcrypt hash; null until an invited user sets a password. */
@@ -9,6 +9,8 @@ export interface User extends Base {
   name: string;
   locale: Locale;
   temperatureUnit: TemperatureUnit;
+  /** Bumped when the password changes: sessions sealed with an older value are signed out. */
+  sessionVersion: number;
 }
 
 export const UserSchema = new EntitySchema<User>({
@@ -21,5 +23,6 @@ export const UserSchema = new EntitySchema<User>({
     name: { type: 'string', length: 200 },
     locale: { type: 'string', length: 8, default: 'en' },
     temperatureUnit: { type: 'string', length: 1, default: 'C' },
+    sessionVersion: { type: 'integer', default: 0 },
   },
 });

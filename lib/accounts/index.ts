@@ -122,12 +122,15 @@ export async function requestPasswordReset(em: EntityManager, email: string): Pr
 export async function confirmPasswordReset(em: EntityManager, input: { token: string; password: string }): Promise<void> {
   const passwordHash = await hashPassword(input.password);
   await em.transactional(async (tx) => {
-    const reset = await tx.findOne(PasswordResetSchema, { tokenHash: hashToken(input.token) }, { populate: ['user'] });
+    // Waits for a concurrent confirm of the same link, which then finds it used.
+    const reset = await tx.findOne(PasswordResetSchema, { tokenHash: hashToken(input.token) }, { populate: ['user'], lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!reset || reset.usedAt || reset.expiresAt.getTime() < Date.now()) {
       throw new HttpError(410, 'link_expired', 'This reset link is no longer valid. Ask for a new one.');
     }
     reset.usedAt = new Date();
     reset.user.passwordHash = passwordHash;
+    // Every session sealed before the change is signed out (a stolen cookie does not outlive a reset).
+    reset.user.sessionVersion += 1;
     await clearFailures(tx, reset.user.email);
   });
 }

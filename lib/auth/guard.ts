@@ -26,7 +26,7 @@ export async function requireViewer(): Promise<Viewer> {
   // One joined query for the user and every membership (the hot path of every request).
   const memberships = await em.find(MembershipSchema, { user: session.userId }, { populate: ['user', 'organisation', 'kitchen'], strategy: 'joined' });
   const user = memberships[0]?.user ?? (await em.findOne(UserSchema, { id: session.userId }));
-  if (!user) throw unauthorized('Your session has ended; sign in again.');
+  if (!user || user.sessionVersion !== (session.v ?? 0)) throw unauthorized('Your session has ended; sign in again.');
   return { em, user, memberships };
 }
 

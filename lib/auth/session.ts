@@ -4,6 +4,8 @@ import { getEnv } from '@/lib/env';
 
 export interface SessionData {
   userId?: string;
+  /** The user's session version when the cookie was sealed; a password change bumps it (sign-out everywhere). */
+  v?: number;
   /** Kitchen chosen in the switcher. */
   kitchenId?: string;
 }

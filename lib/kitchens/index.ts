@@ -27,9 +27,10 @@ export function describeKitchen(k: KitchenView, role?: string) {
 /**
  * GET /api/v1/kitchens, the hottest read: the caller's kitchens and their strongest role in ONE
  * query (the same visibility rule as the guard: every kitchen of an organisation the user
- * coordinates, plus the kitchens they lead or cook in). Returns null when the user no longer exists.
+ * coordinates, plus the kitchens they lead or cook in). Returns null when the user no longer exists or
+ * the session was sealed before a password change.
  */
-export async function listKitchensForUser(userId: string) {
+export async function listKitchensForUser(userId: string, sessionVersion: number) {
   const em = await getEm();
   const rows: Record<string, unknown>[] = await em.getConnection().execute(
     `with m as (select role, organisation_id, kitchen_id from memberships where user_id = ?)
@@ -42,9 +43,9 @@ export async function listKitchensForUser(userId: string) {
       where k.organisation_id in (select organisation_id from m where role = 'coordinator' and kitchen_id is null)
          or k.id in (select kitchen_id from m where kitchen_id is not null)
       union all
-     select null, null, null, null, null, null, null, null, null, null, 'user' from users where id = ?
+     select null, null, null, null, null, null, null, null, null, null, 'user' from users where id = ? and session_version = ?
       order by 2 nulls first`,
-    [userId, userId],
+    [userId, userId, sessionVersion],
   );
   if (!rows.length || rows[0]!.role !== 'user') return null;
   return rows.slice(1).map((r) =>

@@ -64,10 +64,16 @@ describe('password reset', () => {
     expect(r.json.error.fields).toEqual({ password: expect.stringMatching(/at least 10/) });
   });
 
-  it('confirming with the token and a new password → 200', async () => {
+  let before: Client;
+  it('confirming with the token and a new password → 200, and sessions opened before are signed out', async () => {
+    before = await new Client().signIn(email, PASSWORD);
+    expect((await before.get('/api/v1/kitchens')).status).toBe(200);
     const r = await new Client().post('/api/v1/password-resets/confirm', { token, password: newPassword });
     expect(r.status, r.text).toBe(200);
     expect(r.json.message).toMatch(/changed/);
+    // A cookie sealed before the change no longer works, on the guarded routes and the fast kitchen list alike.
+    expect((await before.get('/api/v1/me')).status).toBe(401);
+    expect((await before.get('/api/v1/kitchens')).status).toBe(401);
   });
 
   it('the old password is refused (401); the new one signs in', async () => {

@@ -11,7 +11,7 @@ export const GET = route(async () => {
   // The guard's rule in one query (this is the most requested route); see listKitchensForUser.
   const session = await getSession();
   if (!session.userId) throw unauthorized();
-  const kitchens = await listKitchensForUser(session.userId);
+  const kitchens = await listKitchensForUser(session.userId, session.v ?? 0);
   if (!kitchens) throw unauthorized('Your session has ended; sign in again.');
   return json({ kitchens });
 });

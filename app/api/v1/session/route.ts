@@ -13,6 +13,7 @@ export const POST = route(async (req: NextRequest) => {
   const user = await signIn(em, input.email, input.password, clientIp(req));
   const session = await getSession();
   session.userId = user.id;
+  session.v = user.sessionVersion;
   session.kitchenId = undefined;
   await session.save();
   return json({ user: { id: user.id, email: user.email, name: user.name, locale: user.locale, temperatureUnit: user.temperatureUnit } });

@@ -12,6 +12,7 @@ export const POST = route(async (req: NextRequest) => {
   const user = await acceptInvitation(await getEm(), input, await getRequestLocale());
   const session = await getSession();
   session.userId = user.id;
+  session.v = user.sessionVersion;
   await session.save();
   return json({ user: { id: user.id, email: user.email, name: user.name } });
 });
