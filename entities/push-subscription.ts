@@ -24,11 +24,13 @@ export const PushSubscriptionSchema = new EntitySchema<PushSubscription>({
     ...baseProperties,
     user: { kind: 'm:1', entity: 'User', deleteRule: 'cascade' },
     kitchen: { kind: 'm:1', entity: 'Kitchen', deleteRule: 'cascade' },
-    endpoint: { type: 'text', unique: true },
+    endpoint: { type: 'text' },
     p256dh: { type: 'string', length: 200 },
     auth: { type: 'string', length: 64 },
     lastSuccessAt: { type: 'Date', columnType: 'timestamptz', nullable: true },
     failures: { type: 'integer', default: 0 },
   },
+  // One browser has one push endpoint, and a person may follow several kitchens' alerts on it.
+  uniques: [{ properties: ['endpoint', 'kitchen'] }],
   indexes: [{ properties: ['kitchen'] }],
 });

@@ -5,6 +5,7 @@ import { Migration20261202004802 } from '../migrations/Migration20261202004802';
 import { Migration20261202004846 } from '../migrations/Migration20261202004846';
 import { Migration20261202010920 } from '../migrations/Migration20261202010920';
 import { Migration20261202023345 } from '../migrations/Migration20261202023345';
+import { Migration20261202024000 } from '../migrations/Migration20261202024000';
 
 /**
  * Migrations applied from code (start script, tests). Listed explicitly so they run without a
@@ -18,4 +19,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202004846', class: Migration20261202004846 },
   { name: 'Migration20261202010920', class: Migration20261202010920 },
   { name: 'Migration20261202023345', class: Migration20261202023345 },
+  { name: 'Migration20261202024000', class: Migration20261202024000 },
 ];

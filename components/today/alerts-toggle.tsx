@@ -57,9 +57,13 @@ export function AlertsToggle({ kitchenId, vapidPublicKey, online }: { kitchenId:
   async function turnOff() {
     setState('busy');
     const saved = JSON.parse(localStorage.getItem(storageKey(kitchenId)) ?? 'null') as { id: string } | null;
-    if (saved) await fetch(`/api/v1/kitchens/${kitchenId}/push-subscriptions/${saved.id}`, { method: 'DELETE' }).catch(() => undefined);
-    const reg = await navigator.serviceWorker.getRegistration();
-    await (await reg?.pushManager.getSubscription())?.unsubscribe().catch(() => undefined);
+    const res = saved ? await fetch(`/api/v1/kitchens/${kitchenId}/push-subscriptions/${saved.id}`, { method: 'DELETE' }).catch(() => null) : null;
+    const body = (await res?.json().catch(() => null)) as { endpointStillUsed?: boolean } | null;
+    // The phone has one push endpoint for all kitchens: keep it while another kitchen's alerts use it.
+    if (!body?.endpointStillUsed) {
+      const reg = await navigator.serviceWorker.getRegistration();
+      await (await reg?.pushManager.getSubscription())?.unsubscribe().catch(() => undefined);
+    }
     localStorage.removeItem(storageKey(kitchenId));
     setState('off');
   }

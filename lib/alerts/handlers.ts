@@ -87,7 +87,8 @@ export async function handlePushJob(
       await em.flush();
       return { outcome: outcome.kind, status: outcome.status };
     case 'gone':
-      await em.removeAndFlush(sub);
+      // The endpoint itself is dead: every kitchen's row of it goes.
+      await em.nativeDelete(PushSubscriptionSchema, { endpoint: sub.endpoint });
       return { outcome: outcome.kind, status: outcome.status };
     case 'failed':
       sub.failures += 1;

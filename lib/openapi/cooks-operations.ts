@@ -60,5 +60,5 @@ export const cooksOperations: Operation[] = [
   { method: 'delete', path: '/api/v1/kitchens/{kitchenId}/cookers/{cookerId}/api-keys/{keyId}', summary: 'Revoke a sensor key', tag: 'cooks', roles: ['lead'], successStatus: 204 },
   { method: 'get', path: '/api/v1/kitchens/{kitchenId}/push-subscriptions', summary: "The caller's push subscriptions for this kitchen", tag: 'cooks', roles: ALL, response: z.object({ subscriptions: z.array(subscription) }) },
   { method: 'post', path: '/api/v1/kitchens/{kitchenId}/push-subscriptions', summary: "Save a browser's push subscription (PushSubscription.toJSON()) for this kitchen's alerts (201 new, 200 updated)", tag: 'cooks', roles: ALL, body: pushSubscriptionSchema, response: subscription, successStatus: 201 },
-  { method: 'delete', path: '/api/v1/kitchens/{kitchenId}/push-subscriptions/{subscriptionId}', summary: 'Remove one of your push subscriptions', tag: 'cooks', roles: ALL, successStatus: 204 },
+  { method: 'delete', path: '/api/v1/kitchens/{kitchenId}/push-subscriptions/{subscriptionId}', summary: 'Remove one of your push subscriptions ({ endpointStillUsed }: whether another kitchen still uses the endpoint)', tag: 'cooks', roles: ALL },
 ];

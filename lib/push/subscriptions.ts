@@ -29,11 +29,16 @@ export function describeSubscription(s: PushSubscription) {
   return { id: s.id, endpointHost: new URL(s.endpoint).host, createdAt: s.createdAt.toISOString(), lastSuccessAt: s.lastSuccessAt?.toISOString() ?? null };
 }
 
-/** Saves the caller's subscription for this kitchen's alerts; the same endpoint again updates it (the browser re-subscribed). */
+/**
+ * Saves the caller's subscription for this kitchen's alerts. One browser has one endpoint, so the same
+ * endpoint may follow several kitchens (one row each); the same endpoint and kitchen again updates it.
+ */
 export async function saveSubscription(access: KitchenAccess, input: { endpoint: string; keys: { p256dh: string; auth: string } }) {
   if (!isAllowedEndpoint(input.endpoint)) throw unprocessable('This push service is not one we send to.', { endpoint: 'Use the subscription your browser made (an https address of its push service).' });
   const { em } = access;
-  const existing = await em.findOne(PushSubscriptionSchema, { endpoint: input.endpoint });
+  // The browser's keys belong to the endpoint: keep every kitchen's row of it up to date.
+  await em.nativeUpdate(PushSubscriptionSchema, { endpoint: input.endpoint, kitchen: { $ne: access.kitchen.id } }, { p256dh: input.keys.p256dh, auth: input.keys.auth });
+  const existing = await em.findOne(PushSubscriptionSchema, { endpoint: input.endpoint, kitchen: access.kitchen.id });
   if (existing) {
     existing.user = access.user;
     existing.kitchen = access.kitchen;
@@ -53,11 +58,16 @@ export async function listOwnSubscriptions(access: KitchenAccess) {
   return rows.map(describeSubscription);
 }
 
-/** Removes one of the caller's own subscriptions (someone else's is "not found"). */
-export async function removeSubscription(access: KitchenAccess, id: string) {
+/**
+ * Removes one of the caller's own subscriptions (someone else's is "not found"). Says whether the same
+ * endpoint still follows another kitchen, so the phone keeps its browser subscription in that case.
+ */
+export async function removeSubscription(access: KitchenAccess, id: string): Promise<{ endpointStillUsed: boolean }> {
   const s = isUuid(id) ? await access.em.findOne(PushSubscriptionSchema, { id, user: access.user.id, kitchen: access.kitchen.id }) : null;
   if (!s) throw notFound('Subscription');
+  const endpoint = s.endpoint;
   await access.em.removeAndFlush(s);
+  return { endpointStillUsed: (await access.em.count(PushSubscriptionSchema, { endpoint })) > 0 };
 }
 
 export type Audience = 'kitchen' | 'leads';

@@ -264,7 +264,7 @@ describe('sensor keys and POST /api/v1/readings', () => {
 describe('push subscriptions', () => {
   const url = () => `/api/v1/kitchens/${w.kitchenA.id}/push-subscriptions`;
 
-  it('saves a browser subscription (201, then 200 for the same endpoint), lists it, removes it (204, then 404)', async () => {
+  it('saves a browser subscription (201, then 200 for the same endpoint), lists it, removes it (200, then 404)', async () => {
     const s = makeSubscription();
     const first = await cook.post(url(), s.json);
     expect(first.status).toBe(201);
@@ -272,8 +272,23 @@ describe('push subscriptions', () => {
     expect((await cook.post(url(), s.json)).status).toBe(200);
     expect((await cook.get(url())).json.subscriptions.map((x: { id: string }) => x.id)).toContain(first.json.id);
     expect((await lead.del(`${url()}/${first.json.id}`)).status).toBe(404); // not the lead's own
-    expect((await cook.del(`${url()}/${first.json.id}`)).status).toBe(204);
+    const removed = await cook.del(`${url()}/${first.json.id}`);
+    expect(removed.status).toBe(200);
+    expect(removed.json.endpointStillUsed).toBe(false);
     expect((await cook.del(`${url()}/${first.json.id}`)).status).toBe(404);
+  });
+
+  it('one phone follows two kitchens: one row each, and turning one off keeps the other', async () => {
+    const s = makeSubscription();
+    const urlB = `/api/v1/kitchens/${w.kitchenB.id}/push-subscriptions`;
+    const a = await coordinator.post(url(), s.json);
+    const b = await coordinator.post(urlB, s.json);
+    expect([a.status, b.status]).toEqual([201, 201]);
+    expect(a.json.id).not.toBe(b.json.id);
+    const offA = await coordinator.del(`${url()}/${a.json.id}`);
+    expect(offA.json.endpointStillUsed).toBe(true); // kitchen B still uses this phone's endpoint
+    expect((await coordinator.get(urlB)).json.subscriptions.map((x: { id: string }) => x.id)).toContain(b.json.id);
+    expect((await coordinator.del(`${urlB}/${b.json.id}`)).json.endpointStillUsed).toBe(false);
   });
 
   it('refuses a plain-http endpoint, a host that is no push service, and malformed keys (422 naming them)', async () => {
