@@ -61,9 +61,13 @@ async function resolveMediumChoice(em: EntityManager, kitchen: Kitchen, input: P
   return null;
 }
 
+/** A kitchen's cookers in use (not archived), by name, with their custom medium. */
+export async function getActiveCookers(em: EntityManager, kitchenId: string) {
+  return em.find(CookerSchema, { kitchen: kitchenId, archived: false }, { orderBy: { name: 'asc' }, populate: ['customMedium'] });
+}
+
 export async function listCookers(access: KitchenAccess) {
-  const cookers = await access.em.find(CookerSchema, { kitchen: access.kitchen.id, archived: false }, { orderBy: { name: 'asc' }, populate: ['customMedium'] });
-  return cookers.map(describeCooker);
+  return (await getActiveCookers(access.em, access.kitchen.id)).map(describeCooker);
 }
 
 export async function getCooker(access: KitchenAccess, cookerId: string): Promise<Cooker> {

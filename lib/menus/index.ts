@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { CookerSchema, DishSchema, MenuLineSchema, type Cooker, type Dish, type Kitchen, type MenuLine } from '@/entities';
+import { DishSchema, MenuLineSchema, type Cooker, type Dish, type Kitchen, type MenuLine } from '@/entities';
 import type { KitchenAccess } from '@/lib/auth/guard';
 import { recordAudit } from '@/lib/audit';
 import { unprocessable } from '@/lib/http/errors';
@@ -118,8 +118,4 @@ export function splitIntoBatches(lines: MenuLine[], cookers: Pick<Cooker, 'pots'
 export function hm(s: string): [number, number] {
   const [h, m] = s.split(':').map(Number);
   return [h ?? 0, m ?? 0];
-}
-
-export async function getActiveCookers(em: EntityManager, kitchenId: string) {
-  return em.find(CookerSchema, { kitchen: kitchenId, archived: false }, { orderBy: { name: 'asc' }, populate: ['customMedium'] });
 }

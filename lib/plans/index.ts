@@ -12,7 +12,8 @@ import { simulateCooker, type PotLoad } from '@/lib/thermal';
 import { compareWithAllOnWood, planBackupFuel, STOVES, type FuelTotals, type StoveId } from '@/lib/fuel';
 import { toBackupBatchInput } from '@/lib/fuel/plan';
 import { zonedTimeToUtcMs } from '@/lib/time';
-import { getActiveCookers, getMenuLines, hm, splitIntoBatches, type MenuBatch } from '@/lib/menus';
+import { getMenuLines, hm, splitIntoBatches, type MenuBatch } from '@/lib/menus';
+import { getActiveCookers } from '@/lib/cookers';
 import { getPlanningWeather, kitchenSite } from './weather';
 import { getMedium } from '@/lib/materials';
 import { safetyNotesForSlot, type SafetyNote } from '@/lib/safety/notes';
@@ -63,22 +64,8 @@ async function prepareProblem(em: EntityManager, kitchen: Kitchen, date: string,
     const day = prepareDay({ site, timeZone: kitchen.timeZone, date, spec, geometry: toApertureGeometry(c), hourly: weather.hourly, weather: weather.meta, clearness: weather.clearness });
     return { id: c.id, name: c.name, spec, weather: day.steps, initialStoreTempC: day.initialStoreTempC };
   });
-  const batches: PlannerBatch[] = menuBatches.map((b) => ({
-    id: b.id,
-    dishId: b.dishId,
-    dishName: b.dishName,
-    servings: b.servings,
-    method: b.method,
-    potVolumeNeededL: b.potVolumeNeededL,
-    foodKg: b.foodKg,
-    foodCpJPerKgK: b.foodCpJPerKgK,
-    waterKg: b.waterKg,
-    minTempC: b.minTempC,
-    holdS: b.holdS,
-    lidOn: b.lidOn,
-    earliestStartMs: b.earliestStartMs,
-    serveByMs: b.serveByMs,
-  }));
+  // A menu batch carries every field the planner reads (and a few more it ignores).
+  const batches: PlannerBatch[] = menuBatches;
   const problem: PlannerProblem = {
     cookers: plannerCookers,
     batches,

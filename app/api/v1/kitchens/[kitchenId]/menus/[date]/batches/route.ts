@@ -1,6 +1,7 @@
 import { json, route } from '@/lib/http/handler';
 import { requireKitchen } from '@/lib/auth/guard';
-import { getActiveCookers, getMenuLines, splitIntoBatches } from '@/lib/menus';
+import { getMenuLines, splitIntoBatches } from '@/lib/menus';
+import { getActiveCookers } from '@/lib/cookers';
 import { parsePathDate } from '@/lib/validations/menus';
 
 /** The day's menu split into batches by recipe size and the kitchen's largest pot, before planning. */
