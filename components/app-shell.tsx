@@ -6,6 +6,8 @@ import { useTranslations } from 'next-intl';
 import { useState } from 'react';
 import { LanguagePicker } from './language-picker';
 import { PrefsProvider, type Prefs } from './prefs';
+import { Brand } from './brand';
+import { SkipLink } from './skip-link';
 
 export interface NavItem {
   href: string;
@@ -39,14 +41,11 @@ export function AppShell({ user, nav, kitchens, prefs, children }: ShellProps) {
 
   return (
     <div className="min-h-screen">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
-        {tc('skipToContent')}
-      </a>
+      <SkipLink label={tc('skipToContent')} />
       <header className="border-b border-clay-200 bg-clay-900 text-clay-50">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-3 px-4 py-3">
           <Link href="/" className="flex items-center gap-2 text-lg font-bold">
-            <span aria-hidden="true" className="inline-block h-6 w-6 rounded-full bg-gradient-to-br from-amber-300 to-ember-600" />
-            {tc('appName')}
+            <Brand name={tc('appName')} />
           </Link>
           <button
             type="button"

@@ -1,5 +1,6 @@
 import { LanguagePicker } from './language-picker';
 import { IntlProvider } from './intl-provider';
+import { Brand } from './brand';
 
 /** Frame for pages seen before signing in. */
 export async function PublicFrame({ title, tagline, children }: { title: string; tagline: string; children: React.ReactNode }) {
@@ -8,8 +9,7 @@ export async function PublicFrame({ title, tagline, children }: { title: string;
     <main id="main" className="mx-auto flex min-h-screen max-w-md flex-col justify-center gap-6 px-4 py-8">
       <div className="flex items-center justify-between">
         <p className="flex items-center gap-2 text-xl font-bold">
-          <span aria-hidden="true" className="inline-block h-7 w-7 rounded-full bg-gradient-to-br from-amber-300 to-ember-600" />
-          Hearthcast
+          <Brand large />
         </p>
         <LanguagePicker signedIn={false} />
       </div>

@@ -4,6 +4,8 @@ import { getKitchenPageAccess } from '@/lib/auth/kitchen-page';
 import { MiniIntlProvider } from '@/components/mini-intl';
 import { PrefsProvider } from '@/components/prefs';
 import { SignOutButton } from '@/components/sign-out-button';
+import { Brand } from '@/components/brand';
+import { SkipLink } from '@/components/skip-link';
 
 export const dynamic = 'force-dynamic';
 
@@ -19,14 +21,11 @@ export default async function CookLayout({ children, params }: { children: React
   const picked = { today: messages.today, safety: messages.safety, plan: { reasons: plan.reasons } } as never;
   return (
     <div className="min-h-screen">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
-        {t('common.skipToContent')}
-      </a>
+      <SkipLink label={t('common.skipToContent')} />
       <header className="bg-clay-900 text-clay-50">
         <div className="mx-auto flex max-w-3xl flex-wrap items-center gap-3 px-4 py-3">
           <Link href="/" className="flex items-center gap-2 text-lg font-bold">
-            <span aria-hidden="true" className="inline-block h-6 w-6 rounded-full bg-gradient-to-br from-amber-300 to-ember-600" />
-            {t('common.appName')}
+            <Brand name={t('common.appName')} />
           </Link>
           <Link href={`/kitchens/${kitchenId}`} className="min-h-12 content-center text-sm font-semibold underline underline-offset-4">
             {access.kitchen.name}
