@@ -14,6 +14,13 @@ import { normalisePots, toApertureGeometry, toCookerSpec } from './spec';
 
 export { toApertureGeometry, toCookerSpec } from './spec';
 
+/** The store medium of a cooker: built-in (lib/materials) or the organisation's custom table. */
+export function cookerMedium(c: Pick<Cooker, 'mediumId' | 'customMedium'>): { kind: 'oil' | 'pcm' | 'custom'; name: string; smokePointC: number | null } {
+  if (c.mediumId === 'custom') return { kind: 'custom', name: c.customMedium?.name ?? 'custom', smokePointC: c.customMedium?.smokePointC ?? null };
+  const m = getMedium(c.mediumId);
+  return { kind: m.kind, name: m.name, smokePointC: m.smokePointC ?? null };
+}
+
 export function describeCooker(c: Cooker) {
   return {
     id: c.id,
@@ -31,7 +38,7 @@ export function describeCooker(c: Cooker) {
     uLossWPerK: c.uLossWPerK,
     mediumId: c.mediumId,
     customMediumId: c.customMedium?.id ?? null,
-    mediumName: c.mediumId === 'custom' ? (c.customMedium?.name ?? 'custom') : getMedium(c.mediumId).name,
+    mediumName: cookerMedium(c).name,
     storeMassKg: c.storeMassKg,
     storeUaWPerK: c.storeUaWPerK,
     storeNodes: c.storeNodes,

@@ -13,9 +13,8 @@ import { compareWithAllOnWood, planBackupFuel, STOVES, type FuelTotals, type Sto
 import { toBackupBatchInput } from '@/lib/fuel/plan';
 import { zonedTimeToUtcMs } from '@/lib/time';
 import { getMenuLines, hm, splitIntoBatches, type MenuBatch } from '@/lib/menus';
-import { getActiveCookers } from '@/lib/cookers';
+import { cookerMedium, getActiveCookers } from '@/lib/cookers';
 import { getPlanningWeather, kitchenSite } from './weather';
-import { getMedium } from '@/lib/materials';
 import { safetyNotesForSlot, type SafetyNote } from '@/lib/safety/notes';
 
 export interface PlanCookerView {
@@ -101,7 +100,7 @@ function cookerViews(prepared: Prepared, result: PlannerResult): PlanCookerView[
       pots: c.pots.map((p) => ({ id: p.id, name: p.name, volumeL: p.volumeL })),
       minUsefulTempC: c.minUsefulTempC,
       maxSafeTempC: c.maxSafeTempC,
-      medium: describeMedium(c),
+      medium: cookerMedium(c),
       series: { t: pick(sim.series.t), storeTempC: pick(sim.series.storeTempC).map((v) => Math.round(v * 10) / 10), charge: pick(sim.series.charge).map((v) => Math.round(v * 1000) / 1000) },
     };
   });
@@ -152,12 +151,6 @@ export function fuelView(kitchen: Kitchen, menuBatches: MenuBatch[], backupIds: 
     view.solarShareOfHeat = cmp.solarShareOfHeat;
   }
   return view;
-}
-
-function describeMedium(c: Cooker): PlanCookerView['medium'] {
-  if (c.mediumId === 'custom') return { kind: 'custom', name: c.customMedium?.name ?? 'custom', smokePointC: c.customMedium?.smokePointC ?? null };
-  const m = getMedium(c.mediumId);
-  return { kind: m.kind, name: m.name, smokePointC: m.smokePointC ?? null };
 }
 
 /** Safety notes of every slot, from the dish, the cooker's medium and the store's predicted peak during the slot. */
