@@ -240,7 +240,7 @@ function CookerSection({ cooker, outbox, nowMs, timeZone, canLog, clock, onCheck
       <div>
         <h2 id={headingId} className="text-2xl font-bold">{cooker.name}</h2>
         <p className="text-base">
-          {cooker.mediumName} ·{' '}
+          {cooker.mediumName && `${cooker.mediumName} · `}
           <span className="font-semibold">
             {cooker.steeredFromMs !== null ? t('storeNowSteered', { temp: fmtTemp(cooker.storeNowC), time: clock(r?.atMs ?? cooker.steeredFromMs) }) : t('storeNow', { temp: fmtTemp(cooker.storeNowC) })}
           </span>
