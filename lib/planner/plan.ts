@@ -200,11 +200,12 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     if (!highs || search.pool.size === lastMasterPool) return false;
     const left = (deadline - performance.now()) / 1000;
     if (!final && left < 0.05) return false;
-    lastMasterPool = search.pool.size;
     masterRuns++;
+    // The current plan's sequences go into the pool first, so that the MIP start is the whole plan.
+    for (const [c, ev] of st.evs.entries()) search.addColumn(c, ev);
+    lastMasterPool = search.pool.size;
     const cols = [...search.pool.values()];
     const inc = new Set(st.evs.map((ev, c) => `${c}|${ev.key}`));
-    for (const [c, ev] of st.evs.entries()) search.addColumn(c, ev);
     const tM = performance.now();
     // Intermediate masters get at most 5 % of the budget; HiGHS returns its best (≥ the warm start) at the limit.
     const res = solveMaster(highs, nC, cols, inc, Math.max(0.02, final ? left : Math.min(left / 3, 0.05 * problem.timeLimitS)));
