@@ -264,6 +264,9 @@ export class Search {
   tryInsert(st: State, b: PBatch, cookers: readonly number[], maxEvals = 0, pick?: () => number): { c: number; ev: Evaluation } | null {
     // Repairs (no simulation of starts forecast to fail) remember where a batch did not fit: the
     // same sequence on a cooker gives the same forecasts and simulations, so the answer repeats.
+    // Recorded from one-cooker calls only (with several cookers, one cooker's forecasts can cut
+    // another's later starts, so a miss there says less); then the batch is not offered to that
+    // cooker again until its sequence changes.
     const memo = this.maxFailTries === 0 && maxEvals === 0;
     let cs = cookers;
     if (memo) {
@@ -312,7 +315,7 @@ export class Search {
       const r = simulateCand(cand);
       if (r) return r;
     }
-    if (memo && used < limit) {
+    if (memo && used < limit && cs.length === 1) {
       if (this.noFit.size > 50_000) this.noFit.clear();
       for (const c of cs) {
         const k = `${c}|${(st.evs[c] as Evaluation).key}`;
