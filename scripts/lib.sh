@@ -20,4 +20,6 @@ ensure_build() {
     echo "[setup] building the app (next build)…"
     npx next build
   fi
+  # The planner thread's bundle (lib/planner/thread.ts): under a second, so made every time.
+  node scripts/build-planner-thread.mjs
 }

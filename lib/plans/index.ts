@@ -7,7 +7,8 @@ import { recordAudit } from '@/lib/audit';
 import { conflict, notFound, unprocessable } from '@/lib/http/errors';
 import { toApertureGeometry, toCookerSpec } from '@/lib/cookers/spec';
 import { prepareDay } from '@/lib/prediction/predict-day';
-import { checkSlotMove, planDay, type PlannerBatch, type PlannerProblem, type PlannerResult } from '@/lib/planner';
+import { checkSlotMove, type PlannerBatch, type PlannerProblem, type PlannerResult } from '@/lib/planner';
+import { planDayOffThread } from '@/lib/planner/thread';
 import { simulateCooker, type PotLoad } from '@/lib/thermal';
 import { compareWithAllOnWood, planBackupFuel, STOVES, type FuelTotals, type StoveId } from '@/lib/fuel';
 import { toBackupBatchInput } from '@/lib/fuel/plan';
@@ -215,7 +216,7 @@ export async function solveDraft(access: KitchenAccess, date: string, timeLimitS
 export async function createDraft(em: EntityManager, kitchen: Kitchen, actorId: string | null, date: string, timeLimitS: number): Promise<Plan> {
   const prepared = await prepareProblem(em, kitchen, date, timeLimitS);
   if (!prepared.problem.cookers.length) throw unprocessable('This kitchen has no cookers yet. Register a cooker first.', { cookers: 'No cookers.' });
-  const result = await planDay(prepared.problem).catch((err: unknown) => {
+  const result = await planDayOffThread(prepared.problem).catch((err: unknown) => {
     // The planner checks its problem (e.g. a dish served before the shift starts): say so, do not fail.
     if (err instanceof RangeError) throw unprocessable(`The day cannot be planned as entered: ${err.message}`, { date: err.message });
     throw err;

@@ -1,5 +1,6 @@
 import type { z } from 'zod';
-import { planDay, type PlannerProblem } from '@/lib/planner';
+import type { PlannerProblem } from '@/lib/planner';
+import { planDayOffThread } from '@/lib/planner/thread';
 import { normalisePots, toCookerSpec } from '@/lib/cookers/spec';
 import { unprocessable } from '@/lib/http/errors';
 import type { inlineProblemSchema } from '@/lib/validations/planner';
@@ -38,7 +39,7 @@ export async function solveInlineProblem(input: z.infer<typeof inlineProblemSche
     timeZone: input.timeZone,
   };
   try {
-    const r = await planDay(problem);
+    const r = await planDayOffThread(problem);
     return { status: r.status, slots: r.slots.map((s) => ({ ...s, start: new Date(s.startMs).toISOString(), ready: new Date(s.readyMs).toISOString(), done: new Date(s.doneMs).toISOString() })), backup: r.backup, servingsOnSun: r.servingsOnSun, upperBound: r.upperBound, boundMethod: r.boundMethod, gap: r.gap, greedyServings: r.greedyServings, solveTimeMs: r.solveTimeMs };
   } catch (err) {
     if (err instanceof RangeError) throw unprocessable(`The planner refused the problem: ${err.message}`, { '(body)': err.message });
