@@ -34,7 +34,7 @@ function failAll(err: Error): void {
 }
 
 function startWorker(file: string): Worker {
-  const w = new Worker(file);
+  const w = new Worker(/*turbopackIgnore: true*/ file);
   w.unref();
   w.on('message', (msg: Reply) => {
     const entry = waiting.get(msg.id);
@@ -61,7 +61,8 @@ function startWorker(file: string): Worker {
 export function plannerThreadEnabled(file = PLANNER_THREAD_FILE): boolean {
   if (process.env.PLANNER_THREAD === '0') return false;
   if (process.env.PLANNER_THREAD !== '1' && process.env.NODE_ENV !== 'production') return false;
-  return existsSync(file);
+  // The bundle is found at run time; the build must not trace the project for it.
+  return existsSync(/*turbopackIgnore: true*/ file);
 }
 
 /**
