@@ -202,7 +202,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     if (!final && left < 0.05) return false;
     masterRuns++;
     // The current plan's sequences go into the pool first, so that the MIP start is the whole plan.
-    for (const [c, ev] of st.evs.entries()) search.addColumn(c, ev);
+    for (const [c, ev] of st.evs.entries()) search.addColumn(c, ev, true);
     lastMasterPool = search.pool.size;
     const cols = [...search.pool.values()];
     const inc = new Set(st.evs.map((ev, c) => `${c}|${ev.key}`));

@@ -106,17 +106,18 @@ export class Search {
     readonly maxPool = 40_000,
   ) {}
 
-  /** Cooker and sequence key → batches a repair found no place for there. */
-  private readonly noFit = new Map<string, Set<number>>();
+  /** Simulated sequence of a cooker → batches a one-cooker repair found no place for there. */
+  private readonly noFit = new WeakMap<Evaluation, Set<number>>();
   noFitHits = 0;
 
   /** Pot forecasts run by rank() (the screen's 'estimate' mode). */
   forecasts = 0;
 
   /**
-   * Work done so far, in simulations: a ranking forecast counts 1/12 (measured on the benchmark
-   * instances: about 17 µs per forecast against 0.2 ms per incremental simulation). Deterministic,
-   * unlike a clock, so that moves chosen by their cost repeat from run to run.
+   * Work done so far, in sequence evaluations (cache hits included) plus ranking forecasts, a
+   * forecast counted 1/12 (measured on the benchmark instances: about 17 µs per forecast against
+   * 0.2 ms per incremental simulation). Deterministic, unlike a clock, so that moves chosen by their
+   * cost repeat from run to run.
    */
   work(): number {
     return this.evalCount + this.forecasts / 12;
@@ -126,10 +127,11 @@ export class Search {
     return performance.now() > this.deadline;
   }
 
-  addColumn(c: number, ev: Evaluation): void {
+  /** Keeps a feasible sequence as a column; `force` passes the pool's cap (the current plan's sequences). */
+  addColumn(c: number, ev: Evaluation, force = false): void {
     if (!ev.ok) return;
     const key = `${c}|${ev.key}`;
-    if (this.pool.has(key) || this.pool.size >= this.maxPool) return;
+    if (this.pool.has(key) || (!force && this.pool.size >= this.maxPool)) return;
     const batches: number[] = [];
     const values: number[] = [];
     ev.loads.forEach((l, j) => {
@@ -262,21 +264,18 @@ export class Search {
   }
 
   tryInsert(st: State, b: PBatch, cookers: readonly number[], maxEvals = 0, pick?: () => number): { c: number; ev: Evaluation } | null {
-    // Repairs (no simulation of starts forecast to fail) remember where a batch did not fit: the
-    // same sequence on a cooker gives the same forecasts and simulations, so the answer repeats.
-    // Recorded from one-cooker calls only (with several cookers, one cooker's forecasts can cut
-    // another's later starts, so a miss there says less); then the batch is not offered to that
-    // cooker again until its sequence changes.
-    const memo = this.maxFailTries === 0 && maxEvals === 0;
-    let cs = cookers;
-    if (memo) {
-      cs = cookers.filter((c) => !this.noFit.get(`${c}|${(st.evs[c] as Evaluation).key}`)?.has(b.idx));
-      if (cs.length === 0) {
-        this.noFitHits++;
-        return null;
-      }
+    // One-cooker repairs (no simulation of starts forecast to fail) remember where a batch did not
+    // fit: the same simulated sequence (the same Evaluation, so the same store trajectory) gives the
+    // same forecasts and simulations, so the answer would repeat. Only one-cooker calls, both to
+    // record and to use: with several cookers, one cooker's forecasts change which of another's
+    // starts get simulated.
+    const memo = this.maxFailTries === 0 && maxEvals === 0 && cookers.length === 1;
+    const memoEv = memo ? (st.evs[cookers[0] as number] as Evaluation) : null;
+    if (memoEv && this.noFit.get(memoEv)?.has(b.idx)) {
+      this.noFitHits++;
+      return null;
     }
-    const ranked = this.rank(st, b, cs, pick);
+    const ranked = this.rank(st, b, cookers, pick);
     const trace = newTrace();
     const limit = maxEvals > 0 ? maxEvals : 12;
     let used = 0;
@@ -315,14 +314,10 @@ export class Search {
       const r = simulateCand(cand);
       if (r) return r;
     }
-    if (memo && used < limit && cs.length === 1) {
-      if (this.noFit.size > 50_000) this.noFit.clear();
-      for (const c of cs) {
-        const k = `${c}|${(st.evs[c] as Evaluation).key}`;
-        let set = this.noFit.get(k);
-        if (!set) this.noFit.set(k, (set = new Set()));
-        set.add(b.idx);
-      }
+    if (memoEv && used < limit) {
+      let set = this.noFit.get(memoEv);
+      if (!set) this.noFit.set(memoEv, (set = new Set()));
+      set.add(b.idx);
     }
     return null;
   }

@@ -65,14 +65,22 @@ describe('planner thread', () => {
     expect((err as Error).message).toMatch(/timeLimitS/);
   }, 60_000);
 
-  it('problems posted together each get their own plan', async () => {
-    const a = makeSmall(4);
-    const b = makeSmall(5);
+  it('problems posted together to a fresh thread each get their own plan and their whole time limit', async () => {
+    // A fresh thread is still warming up when both arrive: they must still run one after the other.
+    await stopPlannerThread();
+    // 12 × 60 instances: their plans always run to the time limit (never at the bound).
+    const a = makeInstance(12, 60, 3, 1);
+    const b = makeInstance(12, 60, 4, 1);
     b.batches = b.batches.map((x) => ({ ...x, id: `other-${x.id}` }));
     const [ra, rb] = await Promise.all([planDayOffThread(a, file), planDayOffThread(b, file)]);
     const ids = (r: typeof ra) => [...r.slots.map((s) => s.batchId), ...r.backup.map((x) => x.batchId)].sort();
     expect(ids(ra)).toEqual(a.batches.map((x) => x.id).sort());
     expect(ids(rb)).toEqual(b.batches.map((x) => x.id).sort());
+    // Had the second plan shared the first one's second, its search would have had no time left.
+    for (const r of [ra, rb]) {
+      expect(r.iterations).toBeGreaterThan(10);
+      expect(r.solveTimeMs).toBeGreaterThan(700);
+    }
   }, 60_000);
 
   it('the calling thread keeps answering while a plan is made', async () => {
