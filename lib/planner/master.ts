@@ -67,8 +67,38 @@ export interface SolveOutcome {
   dualBound: number;
 }
 
-/** Solves one model and disposes it. */
+/**
+ * HiGHS instances that failed (a WebAssembly abort — e.g. its 2 GiB heap exhausted — leaves the
+ * module unusable): no more models go to them, and the next loadHighs() makes a fresh instance.
+ */
+const failed = new WeakSet<Highs>();
+
+/** Whether `h` still answers (it has not failed in this process). */
+export function highsUsable(h: Highs | null): h is Highs {
+  return !!h && !failed.has(h);
+}
+
+/** Status of a solve that HiGHS could not run (the instance failed): no solution, callers go on without it. */
+export const STATUS_SOLVER_FAILED = -1;
+
+/**
+ * Solves one model and disposes it. A failure inside HiGHS does not reach the caller: the instance is
+ * marked failed (a new one is loaded next time) and the outcome has status STATUS_SOLVER_FAILED and no x.
+ */
 export function solveModel(h: Highs, data: ModelData, timeLimitS: number, start?: number[]): SolveOutcome {
+  const none: SolveOutcome = { status: STATUS_SOLVER_FAILED, objective: Number.NaN, x: null, dualBound: Number.NaN };
+  if (failed.has(h)) return none;
+  try {
+    return runModel(h, data, timeLimitS, start);
+  } catch (err) {
+    failed.add(h);
+    if (highsPromise) highsPromise = null;
+    console.error('[planner] HiGHS failed; going on without it for this plan, a fresh instance next time:', err instanceof Error ? err.message : err);
+    return none;
+  }
+}
+
+function runModel(h: Highs, data: ModelData, timeLimitS: number, start?: number[]): SolveOutcome {
   const model = h.createModel(data);
   try {
     model.options.set({ output_flag: false, time_limit: Math.max(0.02, timeLimitS), mip_rel_gap: 1e-9, random_seed: 1 });
@@ -85,7 +115,11 @@ export function solveModel(h: Highs, data: ModelData, timeLimitS: number, start?
     }
     return { status, objective: model.getObjectiveValue(), x: hasX ? Float64Array.from(sol.colValue) : null, dualBound };
   } finally {
-    model.dispose();
+    try {
+      model.dispose();
+    } catch {
+      // An aborted instance cannot free its model either; it is dropped as a whole.
+    }
   }
 }
 

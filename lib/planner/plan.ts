@@ -30,7 +30,7 @@
  */
 import type { Highs } from 'highs';
 import { buildModel, ceilToGrid, CookerEvaluator, nextShiftStart, shiftEndAt, type Evaluation, type EvaluatorStats, type Load, type LoadOut, type PBatch, type PModel } from './model';
-import { loadHighs, solveMaster, warmPlanner as warmHighs } from './master';
+import { highsUsable, loadHighs, solveMaster, warmPlanner as warmHighs } from './master';
 import { BOUND_METHOD_EXACT, BOUND_METHOD_SIMPLE, computeBound } from './bound';
 import { enumerateExact } from './exact';
 import { buildRelaxation, type Relaxation } from './relaxation';
@@ -197,7 +197,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     return stateServings(m, st) >= bound - 1e-9;
   }
   const tryMaster = (final: boolean) => {
-    if (!highs || search.pool.size === lastMasterPool) return false;
+    if (!highsUsable(highs) || search.pool.size === lastMasterPool) return false;
     const left = (deadline - performance.now()) / 1000;
     if (!final && left < 0.05) return false;
     masterRuns++;
@@ -211,6 +211,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
     const res = solveMaster(highs, nC, cols, inc, Math.max(0.02, final ? left : Math.min(left / 3, 0.05 * problem.timeLimitS)));
     lastMasterStatus = res?.status ?? -1;
     masterMs += performance.now() - tM;
+    if (!highsUsable(highs)) say('HiGHS failed: no more master solves in this plan (local search and the re-check go on)');
     if (!res) return false;
     const cur = stateValue(m, st);
     // The master counts the movable batches only; fixed and finished batches are the same in every plan.
@@ -235,7 +236,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
 
   // Small instances: decide every subset of every cooker (exact.ts); the master over those columns is exact.
   let exactProof = false;
-  if (!atBoundNow() && highs && (deps.maxExactEvaluations ?? 4000) > 0 && performance.now() < deadline) {
+  if (!atBoundNow() && highsUsable(highs) && (deps.maxExactEvaluations ?? 4000) > 0 && performance.now() < deadline) {
     const ex = enumerateExact(m, search, fixedOnly, deps.maxExactEvaluations ?? 4000, performance.now() + 0.35 * (deadline - performance.now()));
     say(`exact enumeration: ${ex.complete ? 'complete' : 'stopped'}, ${ex.columns} columns, ${ex.evaluations} simulations`);
     if (ex.complete) {
@@ -349,7 +350,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   // 5. Upper bound: the LP relaxation when HiGHS is there and the cheap bound is not met.
   let boundRes = { bound, method: exactProof ? BOUND_METHOD_EXACT : BOUND_METHOD_SIMPLE, lpStatus: null as number | null };
   const lpLeftS = (tEnd - performance.now() - recheckMs - 10) / 1000;
-  if (highs && runLp && !exactProof && stateServings(m, st) < bound - 1e-9 && lpLeftS > 0.02) {
+  if (highsUsable(highs) && runLp && !exactProof && stateServings(m, st) < bound - 1e-9 && lpLeftS > 0.02) {
     boundRes = computeBound(highs, m, relax, lpLeftS);
     bound = boundRes.bound;
   }
