@@ -30,7 +30,7 @@
  */
 import type { Highs } from 'highs';
 import { buildModel, ceilToGrid, CookerEvaluator, nextShiftStart, shiftEndAt, type Evaluation, type EvaluatorStats, type Load, type LoadOut, type PBatch, type PModel } from './model';
-import { highsUsable, loadHighs, solveMaster, warmPlanner as warmHighs } from './master';
+import { highsUsable, loadHighs, recycleHighsIfLarge, solveMaster, warmPlanner as warmHighs } from './master';
 import { BOUND_METHOD_EXACT, BOUND_METHOD_SIMPLE, computeBound } from './bound';
 import { enumerateExact } from './exact';
 import { buildRelaxation, type Relaxation } from './relaxation';
@@ -421,6 +421,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   else if (stopReason === 'time') status = 'time-limit';
   else if (stopReason === 'iterations') status = 'iteration-limit';
   else status = 'converged';
+  if (recycleHighsIfLarge(highs)) say('HiGHS heap above its limit: the next plan loads a fresh instance');
   say(`final: ${servingsOnSun} servings, bound ${upperBound}, gap ${(gap * 100).toFixed(2)} %, ${stats.sims} simulations (${stats.simSteps} steps), ${backup.length} backup`);
   return {
     status,

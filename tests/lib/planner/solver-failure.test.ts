@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { Highs } from 'highs';
-import { highsUsable, loadHighs, solveMaster, solveModel, STATUS_SOLVER_FAILED } from '@/lib/planner/master';
+import { HIGHS_RECYCLE_BYTES, highsUsable, loadHighs, recycleHighsIfLarge, solveMaster, solveModel, STATUS_SOLVER_FAILED } from '@/lib/planner/master';
 
 function abortingHighs(): Highs {
   const real = { infinity: Infinity, constants: { objectiveSense: { maximize: -1, minimize: 1 } } };
@@ -69,5 +69,18 @@ describe('HiGHS failure', () => {
     const res = solveMaster(second, 1, cols, new Set(), 5);
     expect(res?.objective).toBeCloseTo(3, 9);
     expect(res?.chosen.map((c) => c.key)).toEqual(['0|a']);
+  }, 60_000);
+
+  it('an instance whose heap grew past the limit is retired after the plan; a small one is kept', async () => {
+    const small = { memoryBytes: 100 * 2 ** 20 } as unknown as Highs;
+    const large = { memoryBytes: HIGHS_RECYCLE_BYTES + 1 } as unknown as Highs;
+    expect(recycleHighsIfLarge(small)).toBe(false);
+    expect(highsUsable(small)).toBe(true);
+    expect(recycleHighsIfLarge(large)).toBe(true);
+    expect(highsUsable(large)).toBe(false);
+    // The real instance reports its heap, so the check works on it (just loaded: well under the limit).
+    const h = await loadHighs();
+    expect((h as unknown as { memoryBytes: number }).memoryBytes).toBeGreaterThan(0);
+    expect(recycleHighsIfLarge(h)).toBe(false);
   }, 60_000);
 });
