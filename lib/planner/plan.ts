@@ -30,7 +30,7 @@
  */
 import type { Highs } from 'highs';
 import { buildModel, ceilToGrid, CookerEvaluator, nextShiftStart, shiftEndAt, type Evaluation, type EvaluatorStats, type Load, type LoadOut, type PBatch, type PModel } from './model';
-import { highsUsable, loadHighs, recycleHighsIfLarge, solveMaster, warmPlanner as warmHighs } from './master';
+import { HIGHS_STOP_BYTES, highsHeapBytes, highsUsable, loadHighs, recycleHighsIfLarge, solveMaster, warmPlanner as warmHighs } from './master';
 import { BOUND_METHOD_EXACT, BOUND_METHOD_SIMPLE, computeBound } from './bound';
 import { enumerateExact } from './exact';
 import { buildRelaxation, type Relaxation } from './relaxation';
@@ -196,8 +196,14 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   function atBoundNow(): boolean {
     return stateServings(m, st) >= bound - 1e-9;
   }
+  let heapFull = false;
   const tryMaster = (final: boolean) => {
     if (!highsUsable(highs) || search.pool.size === lastMasterPool) return false;
+    if (highsHeapBytes(highs) > HIGHS_STOP_BYTES) {
+      if (!heapFull) say(`HiGHS heap at ${Math.round(highsHeapBytes(highs) / 2 ** 20)} MiB: no more master solves in this plan`);
+      heapFull = true;
+      return false;
+    }
     const left = (deadline - performance.now()) / 1000;
     if (!final && left < 0.05) return false;
     masterRuns++;
