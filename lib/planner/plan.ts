@@ -13,7 +13,8 @@
  *     (screen.ts) forecasts to finish first, verified by simulating the receiving cooker only;
  *  3. small instances: every subset of batches on every cooker decided exactly (exact.ts);
  *  4. local search: swap and insertion passes, large-neighbourhood destroy-and-repair (one to a few
- *     cookers re-packed, or 1–2 batches per cooker taken out and re-inserted), kicks from the best
+ *     cookers re-packed, or 1–2 batches per cooker taken out and re-inserted; the move drawn by its
+ *     recent gain per unit of work, MoveChooser below), kicks from the best
  *     plan when it stalls (iterated local search), a final pass moving batches later to wait less;
  *     every feasible sequence met becomes a column;
  *  5. a set-packing master over all columns solved by HiGHS (master.ts), warm-started with the
