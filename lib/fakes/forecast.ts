@@ -18,6 +18,7 @@
 import http from 'node:http';
 import type { Socket } from 'node:net';
 import { clearSkyHourly, cloudFactorKastenCzeplak1980, dailyAirTemperatureC, type Site } from '../solar';
+import { mulberry32 } from '../random';
 
 export const FAKE_MODES = ['ok', '500', 'timeout', 'malformed', 'schema', 'gap'] as const;
 export type FakeMode = (typeof FAKE_MODES)[number];
@@ -45,17 +46,6 @@ function hash32(s: string): number {
   return h >>> 0;
 }
 
-/** Mulberry32: a small seeded PRNG, uniform in [0, 1). */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 interface DayPattern {
   /** Cloud cover [%] at 00:00 … 24:00 UTC (25 knots). */

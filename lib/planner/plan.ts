@@ -35,7 +35,8 @@ import { HIGHS_STOP_BYTES, highsHeapBytes, highsUsable, loadHighs, recycleHighsI
 import { BOUND_METHOD_EXACT, BOUND_METHOD_SIMPLE, computeBound } from './bound';
 import { enumerateExact } from './exact';
 import { buildRelaxation, type Relaxation } from './relaxation';
-import { mulberry32, placedOf, Search, stateServings, stateValue, type State } from './search';
+import { mulberry32 } from '@/lib/random';
+import { placedOf, Search, stateServings, stateValue, type State } from './search';
 import type { BackupBatch, PlannerDeps, PlannerProblem, PlannerResult, PlannerStatus, SimulateFn } from './types';
 import { STEP_MS, validateProblem } from './validate';
 import { buildSlots, failureDetail } from './report';

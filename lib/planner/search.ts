@@ -30,17 +30,6 @@ import type { Relaxation } from './relaxation';
 import { newTrace, type DeltaTrace, type PotScreen } from './screen';
 import { STEP_MS } from './validate';
 
-/** Deterministic PRNG (mulberry32, Tommy Ettinger 2017): 32-bit state, uniform [0, 1). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 export interface Column {
   c: number;

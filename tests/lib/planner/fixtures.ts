@@ -10,7 +10,7 @@
  */
 import type { CookerSpec, PotSpec, WeatherStep } from '@/lib/thermal/types';
 import type { PlannerBatch, PlannerCooker, PlannerProblem } from '@/lib/planner/types';
-import { mulberry32 } from '@/lib/planner/search';
+import { mulberry32 } from '@/lib/random';
 
 export const DAY0 = Date.UTC(2024, 2, 20, 0, 0);
 export const H = 3600_000;

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { MoveChooser } from '@/lib/planner/plan';
-import { mulberry32 } from '@/lib/planner/search';
+import { mulberry32 } from '@/lib/random';
 
 function shares(ch: MoveChooser, n: number, draws: number): number[] {
   const count = new Array<number>(n).fill(0);

@@ -15,18 +15,10 @@ import {
   surfaceOrientation,
 } from '@/lib/solar/irradiance';
 import { solarPositionSpa } from '@/lib/solar/position';
+import { mulberry32 } from '@/lib/random';
 
 const D = Math.PI / 180;
 
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 describe('airMassKastenYoung1989', () => {
   // Kasten & Young 1989, Applied Optics 28(22):4735, eq. 3, evaluated independently here.

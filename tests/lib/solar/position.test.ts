@@ -10,17 +10,8 @@ import {
   sunriseTransitSunsetSpa,
 } from '@/lib/solar/position';
 import { L_TERMS, B_TERMS, R_TERMS, NUTATION_TERMS } from '@/lib/solar/spa-tables';
+import { mulberry32 } from '@/lib/random';
 
-/** Small seeded PRNG (mulberry32, public-domain algorithm by T. Ettinger) so the sample is the same every run. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function angleDiff(a: number, b: number): number {
   const d = Math.abs(a - b) % 360;

@@ -1,17 +1,8 @@
 /** Shared fixtures for the thermal tests: a seeded PRNG, weather builders and a reference cooker. */
 import type { CookerSpec, PotLoad, WeatherStep } from '@/lib/thermal';
+import { mulberry32 } from '@/lib/random';
 
-/** Mulberry32: small seeded PRNG (public-domain algorithm by Tommy Ettinger) → uniform [0, 1). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { mulberry32 };
 
 export const T0_MS = Date.UTC(2026, 2, 1, 0, 0, 0);
 export const MIN_MS = 60_000;

@@ -1,0 +1,15 @@
+/**
+ * Mulberry32 (Tommy Ettinger, 2017; public domain): a 32-bit-state seeded generator, uniform in
+ * [0, 1). Used wherever a run must repeat: the planner's search, the forecast fake's weather, and
+ * the tests' sampled cases.
+ */
+export function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
