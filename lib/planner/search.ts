@@ -401,7 +401,6 @@ export class Search {
     this.iterations++;
     const m = this.m;
     const bs = m.batches;
-    const before = cookers.reduce((s, c) => s + (st.evs[c] as Evaluation).value, 0);
     const trial: State = { evs: st.evs.slice() };
     const pool = new Set<number>();
     for (const c of cookers) {
@@ -419,24 +418,7 @@ export class Search {
     const items = [...pool].sort((a, z) => a - z);
     const noise = new Map(items.map((bi) => [bi, this.rng()]));
     items.sort((a, z) => (bs[z] as PBatch).base * (0.85 + 0.3 * (noise.get(z) as number)) - (bs[a] as PBatch).base * (0.85 + 0.3 * (noise.get(a) as number)) || a - z);
-    const keep = this.maxFailTries;
-    this.maxFailTries = 0;
-    try {
-      for (const bi of items) {
-        if (this.timeUp()) return false;
-        const r = this.tryInsert(trial, bs[bi] as PBatch, cookers, 0, this.rng);
-        if (r) trial.evs[r.c] = r.ev;
-      }
-    } finally {
-      this.maxFailTries = keep;
-    }
-    const after = cookers.reduce((s, c) => s + (trial.evs[c] as Evaluation).value, 0);
-    for (const c of cookers) this.addColumn(c, trial.evs[c] as Evaluation);
-    if (after > before + 1e-9 || (after > before - 1e-9 && this.rng() < 0.3)) {
-      for (const c of cookers) st.evs[c] = trial.evs[c] as Evaluation;
-      return after > before + 1e-9;
-    }
-    return false;
+    return this.repairAndAccept(st, trial, cookers, items, cookers, this.rng);
   }
 
   /**
@@ -550,7 +532,6 @@ export class Search {
   lns(st: State, cookers: number[]): boolean {
     this.iterations++;
     const m = this.m;
-    const before = cookers.reduce((s, c) => s + (st.evs[c] as Evaluation).value, 0);
     const pool = new Set<number>();
     const trial: State = { evs: st.evs.slice() };
     for (const c of cookers) {
@@ -576,13 +557,25 @@ export class Search {
     items.sort((a, z) => (key.get(a) as number) - (key.get(z) as number) || a - z);
     const order = cookers.length > 1 && this.rng() < 0.5 ? [...cookers].reverse() : cookers;
     const randomPick = this.rng() < 0.5 ? this.rng : undefined;
-    // Repairs trust the forecast: a start it expects to fail is not simulated.
+    return this.repairAndAccept(st, trial, cookers, items, order, randomPick);
+  }
+
+  /**
+   * The repair both destroy moves share: inserts `items` in that order into `trial` on `order`'s
+   * cookers, trusting the forecast (a start it expects to fail is not simulated); keeps the new
+   * sequences as columns; takes the trial into `st` when it is better, or now and then when equal (to
+   * move along plateaus). Batches taken out and not re-placed lose their value: the sums over
+   * `cookers` before and after account for it. True when `st` improved.
+   */
+  private repairAndAccept(st: State, trial: State, cookers: readonly number[], items: readonly number[], order: readonly number[], pick?: () => number): boolean {
+    const bs = this.m.batches;
+    const before = cookers.reduce((s, c) => s + (st.evs[c] as Evaluation).value, 0);
     const keep = this.maxFailTries;
     this.maxFailTries = 0;
     try {
       for (const bi of items) {
         if (this.timeUp()) return false;
-        const r = this.tryInsert(trial, bs[bi] as PBatch, order, 0, randomPick);
+        const r = this.tryInsert(trial, bs[bi] as PBatch, order, 0, pick);
         if (r) trial.evs[r.c] = r.ev;
       }
     } finally {
@@ -590,7 +583,6 @@ export class Search {
     }
     const after = cookers.reduce((s, c) => s + (trial.evs[c] as Evaluation).value, 0);
     for (const c of cookers) this.addColumn(c, trial.evs[c] as Evaluation);
-    // Batches taken out and not re-placed lose their value; the before/after sums account for it.
     if (after > before + 1e-9 || (after > before - 1e-9 && this.rng() < 0.3)) {
       for (const c of cookers) st.evs[c] = trial.evs[c] as Evaluation;
       return after > before + 1e-9;
