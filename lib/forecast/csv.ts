@@ -25,6 +25,18 @@ export interface FileIssue {
   message: string;
 }
 
+/** Issues of one file as a parser finds them: every one counted, the first `max` kept. */
+export class IssueList {
+  readonly issues: FileIssue[] = [];
+  count = 0;
+  constructor(private readonly max: number) {}
+
+  readonly add = (line: number, field: string, message: string): void => {
+    this.count++;
+    if (this.issues.length < this.max) this.issues.push({ line, field, message });
+  };
+}
+
 /** Hours read from a file; tAirC is NaN where the file gave none. */
 export interface ParsedHours {
   hours: HourlyWeather[];
@@ -87,12 +99,8 @@ export function parseIsoWithOffset(s: string): { ms: number } | { error: string 
  * @returns hours sorted by time (tAirC NaN when the file has no temperature), and the issues
  */
 export function parseWeatherCsv(text: string, maxIssues = 20): ParsedHours {
-  const issues: FileIssue[] = [];
-  let issueCount = 0;
-  const issue = (line: number, field: string, message: string) => {
-    issueCount++;
-    if (issues.length < maxIssues) issues.push({ line, field, message });
-  };
+  const found = new IssueList(maxIssues);
+  const issue = found.add;
   const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
   let headerLine = -1;
   for (let i = 0; i < lines.length; i++) if (lines[i]!.trim()) {
@@ -101,7 +109,7 @@ export function parseWeatherCsv(text: string, maxIssues = 20): ParsedHours {
   }
   if (headerLine < 0) {
     issue(1, '(file)', 'The file is empty.');
-    return { hours: [], issues, issueCount };
+    return { hours: [], issues: found.issues, issueCount: found.count };
   }
   const header = lines[headerLine]!.split(',').map((c) => c.trim().toLowerCase());
   const cols = new Map<CsvColumn, number>();
@@ -115,7 +123,7 @@ export function parseWeatherCsv(text: string, maxIssues = 20): ParsedHours {
     }
   });
   for (const req of ['time', 'ghi_w_m2'] as const) if (!cols.has(req)) issue(headerLine + 1, req, `The header needs a "${req}" column.`);
-  if (issueCount) return { hours: [], issues, issueCount };
+  if (found.count) return { hours: [], issues: found.issues, issueCount: found.count };
 
   const hours: HourlyWeather[] = [];
   const seen = new Map<number, number>();
@@ -193,7 +201,7 @@ export function parseWeatherCsv(text: string, maxIssues = 20): ParsedHours {
     if (values.cloud_okta !== undefined) h.cloudOkta = values.cloud_okta;
     hours.push(h);
   }
-  if (!hours.length && !issueCount) issue(headerLine + 2, '(file)', 'The file has a header but no hours.');
+  if (!hours.length && !found.count) issue(headerLine + 2, '(file)', 'The file has a header but no hours.');
   hours.sort((a, b) => a.t - b.t);
-  return { hours, issues, issueCount };
+  return { hours, issues: found.issues, issueCount: found.count };
 }

@@ -15,7 +15,7 @@
  * out-of-range value is an error.
  */
 import type { HourlyWeather } from '@/lib/solar';
-import type { FileIssue } from './csv';
+import { IssueList, type FileIssue } from './csv';
 import { HOUR_MS } from './types';
 
 export interface EpwLocation {
@@ -74,17 +74,13 @@ const HEADER_NAMES = ['LOCATION', 'DESIGN CONDITIONS', 'TYPICAL/EXTREME PERIODS'
  * @param maxIssues issues kept (all are counted); default 20
  */
 export function parseEpw(text: string, maxIssues = 20): ParsedEpw {
-  const issues: FileIssue[] = [];
-  let issueCount = 0;
-  const issue = (line: number, field: string, message: string) => {
-    issueCount++;
-    if (issues.length < maxIssues) issues.push({ line, field, message });
-  };
+  const found = new IssueList(maxIssues);
+  const issue = found.add;
   const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
   while (lines.length && !lines[lines.length - 1]!.trim()) lines.pop();
   if (lines.length <= 8) {
     issue(1, '(file)', `An EPW file has 8 header lines and then one line per hour; this one has ${lines.length} lines.`);
-    return { location: null, records: [], issues, issueCount };
+    return { location: null, records: [], issues: found.issues, issueCount: found.count };
   }
   HEADER_NAMES.forEach((name, i) => {
     const first = lines[i]!.split(',')[0]!.trim().toUpperCase();
@@ -187,8 +183,8 @@ export function parseEpw(text: string, maxIssues = 20): ParsedEpw {
     seen.set(key, line);
     records.push(rec);
   }
-  if (!records.length && !issueCount) issue(9, '(file)', 'The file has a header but no hours.');
-  return { location, records, issues, issueCount };
+  if (!records.length && !found.count) issue(9, '(file)', 'The file has a header but no hours.');
+  return { location, records, issues: found.issues, issueCount: found.count };
 }
 
 /** Start of the hour a record describes [epoch ms]: hour h covers (h − 1):00–h:00 local standard time. */
