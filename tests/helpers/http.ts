@@ -23,16 +23,7 @@ export class Client {
       const pair = c.split(';')[0]!;
       if (pair.startsWith('hc_session=')) this.cookie = pair.endsWith('=') ? '' : pair;
     }
-    const text = await res.text();
-    let json: unknown = null;
-    try {
-      json = text ? JSON.parse(text) : null;
-    } catch {
-      json = null;
-    }
-    // Tests read bodies of every shape and assert on them; typing each would not make them safer.
-    // eslint-disable-next-line @typescript-eslint/no-explicit-any
-    return { status: res.status, headers: res.headers, json: json as Record<string, any>, text };
+    return readResponse(res);
   }
 
   /** POST a multipart form (e.g. a file upload); fetch sets the boundary. */
@@ -40,15 +31,7 @@ export class Client {
     const headers: Record<string, string> = { 'x-forwarded-for': this.ip };
     if (this.cookie) headers.cookie = this.cookie;
     const res = await fetch(this.baseUrl + path, { method: 'POST', headers, body: form, redirect: 'manual' });
-    const text = await res.text();
-    let json: unknown = null;
-    try {
-      json = text ? JSON.parse(text) : null;
-    } catch {
-      json = null;
-    }
-    // eslint-disable-next-line @typescript-eslint/no-explicit-any
-    return { status: res.status, headers: res.headers, json: json as Record<string, any>, text };
+    return readResponse(res);
   }
 
   get = (p: string) => this.request('GET', p);
@@ -65,4 +48,18 @@ export class Client {
 
 function rand() {
   return Math.floor(Math.random() * 250) + 1;
+}
+
+/** Status, headers, text and (when the body is JSON) the parsed body of a response. */
+async function readResponse(res: Response) {
+  const text = await res.text();
+  let json: unknown = null;
+  try {
+    json = text ? JSON.parse(text) : null;
+  } catch {
+    json = null;
+  }
+  // Tests read bodies of every shape and assert on them; typing each would not make them safer.
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+  return { status: res.status, headers: res.headers, json: json as Record<string, any>, text };
 }
