@@ -3,10 +3,9 @@
 import { useTranslations } from './mini-intl';
 import type { SafetyNote } from '@/lib/safety/notes';
 import { usePrefs } from './prefs';
+import { LevelIcon } from './today/icons';
 
-const ICON = { danger: '⛔', warning: '⚠', info: 'ℹ' } as const;
-
-/** Safety notes of a slot, most serious first, each with a text label (not colour alone). */
+/** Safety notes (of a slot, a cooker or a dish), most serious first, each with a text label (not colour alone). */
 export function SafetyList({ notes, compact = false }: { notes: SafetyNote[]; compact?: boolean }) {
   const t = useTranslations('safety');
   const { fmtTemp } = usePrefs();
@@ -22,7 +21,7 @@ export function SafetyList({ notes, compact = false }: { notes: SafetyNote[]; co
           key={n.code}
           className={`flex gap-2 rounded px-2 py-1 ${n.level === 'danger' ? 'bg-ember-50 font-semibold text-ember-800' : n.level === 'warning' ? 'bg-amber-50 text-clay-900' : 'text-clay-700'}`}
         >
-          <span aria-hidden="true">{ICON[n.level]}</span>
+          <LevelIcon level={n.level} className="mt-0.5 h-4 w-4 shrink-0" />
           <span>{t(n.code, words(n))}</span>
         </li>
       ))}

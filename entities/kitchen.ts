@@ -29,15 +29,21 @@ export interface KitchenPlanning {
   shiftStart: string;
   shiftEnd: string;
   turnaroundMin: number;
+  /** A same-day plan puts no pot on before the time of solving plus this [min]. Absent: DEFAULT_LEAD_TIME_MIN. */
+  leadTimeMin?: number;
   currency: string;
   /** Backup stoves on hand: stove id (lib/fuel STOVES), measured efficiency [0–1] if known, price per kg or kWh. */
   fuels: { stoveId: string; efficiency?: number; price?: number }[];
 }
 
+/** Time cooks need between a same-day plan and the first pot going on [min] (common practice, no source). */
+export const DEFAULT_LEAD_TIME_MIN = 30;
+
 export const DEFAULT_PLANNING: KitchenPlanning = {
   shiftStart: '06:00',
   shiftEnd: '19:00',
   turnaroundMin: 15,
+  leadTimeMin: DEFAULT_LEAD_TIME_MIN,
   currency: 'USD',
   fuels: [{ stoveId: 'lpg' }, { stoveId: 'three-stone-wood' }],
 };

@@ -2,6 +2,7 @@ import { EntitySchema } from '@mikro-orm/core';
 import { baseProperties, type Base } from './base';
 import type { Kitchen } from './kitchen';
 import type { User } from './user';
+import { planCookerSchema, planFuelSchema, PlanRecordType, storedBatchSchema, storedResultSchema, type PlanCookerView, type PlanFuelView, type StoredBatch, type StoredResult } from './plan-records';
 
 export const PLAN_STATUSES = ['draft', 'published', 'superseded'] as const;
 export type PlanStatus = (typeof PLAN_STATUSES)[number];
@@ -21,14 +22,14 @@ export interface Plan extends Base {
   publishedBy: User | null;
   /** Where the weather came from when it was solved (forecast, clear-sky, …). */
   weatherSource: string;
-  /** The batches as planned (dish, servings, temperatures, times), JSON. */
-  batches: unknown;
-  /** The planner's result (slots, backup, bound, gap, status, times), JSON. */
-  result: unknown;
-  /** Backup fuel report, JSON. */
-  fuel: unknown;
-  /** Cookers as they were (id, name, pots) and the store trajectory per cooker for the chart, JSON. */
-  cookers: unknown;
+  /** The batches as planned (dish, servings, temperatures, times). */
+  batches: StoredBatch[];
+  /** The planner's result (slots, backup, bound, gap, status, times). */
+  result: StoredResult;
+  /** Backup fuel report. */
+  fuel: PlanFuelView;
+  /** Cookers as they were (id, name, pots, medium) and the store trajectory per cooker for the chart. */
+  cookers: PlanCookerView[];
 }
 
 export const PlanSchema = new EntitySchema<Plan>({
@@ -44,10 +45,11 @@ export const PlanSchema = new EntitySchema<Plan>({
     publishedAt: { type: 'Date', columnType: 'timestamptz', nullable: true },
     publishedBy: { kind: 'm:1', entity: 'User', nullable: true, deleteRule: 'set null' },
     weatherSource: { type: 'string', length: 32 },
-    batches: { type: 'json' },
-    result: { type: 'json' },
-    fuel: { type: 'json' },
-    cookers: { type: 'json' },
+    // JSON columns parsed with their schema when read (entities/plan-records.ts).
+    batches: { type: new PlanRecordType(storedBatchSchema.array(), 'batches') },
+    result: { type: new PlanRecordType(storedResultSchema, 'result') },
+    fuel: { type: new PlanRecordType(planFuelSchema, 'fuel') },
+    cookers: { type: new PlanRecordType(planCookerSchema.array(), 'cookers') },
   },
   indexes: [{ properties: ['kitchen', 'date', 'status'] }],
 });

@@ -1,5 +1,5 @@
-// Bundles the planner thread's entry (lib/planner/thread-entry.ts) into .next/planner-thread.mjs with
-// esbuild, for lib/planner/thread.ts. HiGHS stays outside the bundle: its WebAssembly file is found
+// Bundles the planner thread's entry (lib/planner-thread/entry.ts) into .next/planner-thread.mjs with
+// esbuild, for lib/planner-thread/index.ts. HiGHS stays outside the bundle: its WebAssembly file is found
 // next to its module in node_modules. Run by every build (scripts/lib.sh ensure_build, npm run build);
 // the tests import bundlePlannerThread to make their own copy.
 import { build } from 'esbuild';
@@ -7,7 +7,7 @@ import { pathToFileURL } from 'node:url';
 
 export async function bundlePlannerThread(outfile = '.next/planner-thread.mjs') {
   await build({
-    entryPoints: ['lib/planner/thread-entry.ts'],
+    entryPoints: ['lib/planner-thread/entry.ts'],
     outfile,
     bundle: true,
     platform: 'node',

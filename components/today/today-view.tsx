@@ -2,11 +2,14 @@
 
 import { useFormatter, useTranslations } from '../mini-intl';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import type { TodayCooker, TodayView as TodayData, TodayWarning } from '@/lib/cooks/today';
+import type { TodayCooker, TodayPageData, TodayWarning } from '@/lib/cooks/today';
 import { deleteEntry, flushOutbox, listEntries, newEntry, putEntry, type OutboxEntry } from '@/lib/client/outbox';
 import { usePrefs } from '../prefs';
 import { AlertsToggle } from './alerts-toggle';
-import { phases, withPending } from './phases';
+import { SafetyList } from '../safety-list';
+import { LevelIcon } from './icons';
+import { LanguageChoice } from './language-choice';
+import { phases, shareNotes, withPending } from './phases';
 import { ReadingForm } from './reading-form';
 import { SlotCard, type CheckInKind } from './slot-card';
 
@@ -22,16 +25,17 @@ async function registerServiceWorker(kitchenId: string) {
 }
 
 /**
- * The cooks' page: today's published slots per cooker with countdowns and safety notes, check-ins and
- * readings that survive a lost connection (outbox), push alerts on or off. Works from the service
- * worker's copy when offline and says when it last synced.
+ * The cooks' page: today's published slots per cooker with their state on the clock, countdowns and
+ * safety notes, check-ins and readings that survive a lost connection (outbox), push alerts on or off,
+ * and tomorrow's plan. The server renders the first data (`initial`); the page refreshes it, works from
+ * the service worker's copy when offline and says when it last synced.
  */
-export function TodayView({ kitchenId, userId, timeZone }: { kitchenId: string; userId: string; timeZone: string }) {
+export function TodayView({ kitchenId, userId, timeZone, initial, locale }: { kitchenId: string; userId: string; timeZone: string; initial: TodayPageData | null; locale: string }) {
   const t = useTranslations('today');
   const format = useFormatter();
   const { fmtTemp } = usePrefs();
-  const [data, setData] = useState<TodayData | null>(null);
-  const [synced, setSynced] = useState<{ at: number; fromCache: boolean } | null>(null);
+  const [data, setData] = useState<TodayPageData | null>(initial);
+  const [synced, setSynced] = useState<{ at: number; fromCache: boolean } | null>(initial ? { at: initial.serverNowMs, fromCache: false } : null);
   const [online, setOnline] = useState(true);
   const [loadError, setLoadError] = useState<string | null>(null);
   const [outbox, setOutbox] = useState<OutboxEntry[]>([]);
@@ -45,7 +49,7 @@ export function TodayView({ kitchenId, userId, timeZone }: { kitchenId: string; 
     try {
       const res = await fetch(`/api/v1/kitchens/${kitchenId}/today`, { credentials: 'same-origin' });
       if (res.ok) {
-        const body = (await res.json()) as TodayData;
+        const body = (await res.json()) as TodayPageData;
         const fromCache = res.headers.get('x-hc-from-cache') === '1';
         const at = fromCache ? Number(res.headers.get('x-hc-cached-at') ?? Date.now()) : Date.now();
         if (!live.current) return;
@@ -60,7 +64,7 @@ export function TodayView({ kitchenId, userId, timeZone }: { kitchenId: string; 
       if (live.current) setLoadError(err?.error?.message ?? `HTTP ${res.status}`);
     } catch {
       // No network and no service-worker copy: the phone's own last copy.
-      const saved = JSON.parse(localStorage.getItem(cacheKey(kitchenId)) ?? 'null') as { at: number; data: TodayData } | null;
+      const saved = JSON.parse(localStorage.getItem(cacheKey(kitchenId)) ?? 'null') as { at: number; data: TodayPageData } | null;
       if (!live.current) return;
       setOnline(false);
       if (saved) {
@@ -137,9 +141,12 @@ export function TodayView({ kitchenId, userId, timeZone }: { kitchenId: string; 
 
   return (
     <div className="mx-auto flex max-w-2xl flex-col gap-4 text-clay-900">
-      <header>
-        <h1 className="text-3xl font-bold">{t('title')}</h1>
-        {data?.plan && <p className="text-lg">{t('dateLine', { date: format.dateTime(new Date(`${data.date}T12:00:00Z`), { dateStyle: 'full', timeZone: 'UTC' }), version: data.plan.version })}</p>}
+      <header className="flex flex-wrap items-start justify-between gap-2">
+        <div>
+          <h1 className="text-3xl font-bold">{t('title')}</h1>
+          {data?.plan && <p className="text-lg">{t('dateLine', { date: format.dateTime(new Date(`${data.date}T12:00:00Z`), { dateStyle: 'full', timeZone: 'UTC' }), version: data.plan.version })}</p>}
+        </div>
+        <LanguageChoice locale={locale} />
       </header>
 
       <SyncBar online={online} synced={synced} pending={pending.length} clock={clock} onRefresh={() => flush().then(() => load())} />
@@ -171,14 +178,19 @@ export function TodayView({ kitchenId, userId, timeZone }: { kitchenId: string; 
           {t('noPlan')}
         </p>
       )}
-      {data?.plan && !data.cookers.some((c) => c.slots.length) && <p className="card text-lg">{t('noSlots')}</p>}
+      {data?.plan && (
+        <p className="card text-lg" data-testid="day-summary">
+          {data.cookers.some((c) => c.slots.length) ? t('summary', { sun: data.servings.onSun, backup: data.servings.backup }) : t('allOnBackup', { backup: data.servings.backup })}
+        </p>
+      )}
 
       {data?.plan &&
         data.cookers.map((c) => (
           <CookerSection key={c.id} cooker={c} outbox={outbox} nowMs={nowMs} timeZone={timeZone} canLog={data.canLog} clock={clock} onCheckIn={checkIn} onReading={(body) => submit('reading', body)} />
         ))}
 
-      {data && data.backup.length > 0 && <BackupList backup={data.backup} />}
+      {data && data.backup.length > 0 && <BackupList backup={data.backup} title={t('backupTitle')} />}
+      {data && <Tomorrow data={data} clock={clock} />}
     </div>
   );
 }
@@ -205,13 +217,17 @@ function Warnings({ warnings, cookers, clock, fmtTemp }: { warnings: TodayWarnin
   return (
     <section aria-label={t('warnings')} className="flex flex-col gap-2">
       {warnings.map((w, i) => (
-        <p key={i} role="alert" className="rounded-lg border-2 border-ember-800 bg-ember-50 px-3 py-2 text-lg font-semibold text-ember-800">
-          ⛔{' '}
-          {w.kind === 'store-low'
-            ? t('storeLow', { cooker: name(w.cookerId), dish: w.dishName, temp: fmtTemp(w.neededC) })
-            : w.measured
-              ? t('smokeMeasured', { cooker: name(w.cookerId), temp: fmtTemp(w.storeC), smoke: fmtTemp(w.smokeC) })
-              : t('smokePredicted', { cooker: name(w.cookerId), temp: fmtTemp(w.storeC), smoke: fmtTemp(w.smokeC), time: clock(w.atMs) })}
+        <p key={i} role="alert" className="flex gap-2 rounded-lg border-2 border-ember-800 bg-ember-50 px-3 py-2 text-lg font-semibold text-ember-800">
+          <LevelIcon level="danger" className="mt-1 h-5 w-5 shrink-0" />
+          <span>
+            {w.kind === 'store-low'
+              ? t('storeLow', { cooker: name(w.cookerId), dish: w.dishName, temp: fmtTemp(w.neededC) })
+              : w.kind === 'ready-after-serve-by'
+                ? t('warnReadyAfterServeBy', { cooker: name(w.cookerId), dish: w.dishName, ready: clock(w.readyMs), serveBy: clock(w.serveByMs) })
+                : w.measured
+                  ? t('smokeMeasured', { cooker: name(w.cookerId), temp: fmtTemp(w.storeC), smoke: fmtTemp(w.smokeC) })
+                  : t('smokePredicted', { cooker: name(w.cookerId), temp: fmtTemp(w.storeC), smoke: fmtTemp(w.smokeC), time: clock(w.atMs) })}
+          </span>
         </p>
       ))}
     </section>
@@ -233,6 +249,7 @@ function CookerSection({ cooker, outbox, nowMs, timeZone, canLog, clock, onCheck
   const { fmtTemp } = usePrefs();
   const slots = useMemo(() => withPending(cooker.slots, outbox), [cooker.slots, outbox]);
   const p = phases(slots, nowMs);
+  const notes = useMemo(() => shareNotes(cooker.slots), [cooker.slots]);
   const r = cooker.latestReading;
   const headingId = `cooker-${cooker.id}`;
   return (
@@ -242,28 +259,34 @@ function CookerSection({ cooker, outbox, nowMs, timeZone, canLog, clock, onCheck
         <p className="text-base">
           {cooker.mediumName && `${cooker.mediumName} · `}
           <span className="font-semibold">
-            {cooker.steeredFromMs !== null ? t('storeNowSteered', { temp: fmtTemp(cooker.storeNowC), time: clock(r?.atMs ?? cooker.steeredFromMs) }) : t('storeNow', { temp: fmtTemp(cooker.storeNowC) })}
+            {cooker.repredictedFromMs !== null ? t('storeNowSteered', { temp: fmtTemp(cooker.storeNowC), time: clock(r?.atMs ?? cooker.repredictedFromMs) }) : t('storeNow', { temp: fmtTemp(cooker.storeNowC) })}
           </span>
         </p>
         {r && <p className="text-sm text-clay-700">{t('lastReading', { time: clock(r.atMs), store: fmtTemp(r.storeC), pot: fmtTemp(r.potC) })}</p>}
       </div>
+      {notes.shared.length > 0 && (
+        <details className="rounded-lg bg-white px-3 py-2">
+          <summary className="min-h-12 cursor-pointer content-center font-semibold">{t('safetyHere', { count: notes.shared.length })}</summary>
+          <SafetyList notes={notes.shared} />
+        </details>
+      )}
 
       {slots.length === 0 ? <p className="text-base text-clay-700">{t('noSlotsHere')}</p> : p.current.length === 0 && <p className="text-base text-clay-700">{t('nothingNow')}</p>}
       {p.current.map((s) => (
         <div key={s.batchId}>
           <p className="mb-1 text-sm font-bold uppercase tracking-wide text-ember-700">{t('now')}</p>
-          <SlotCard slot={s} nowMs={nowMs} timeZone={timeZone} canLog={canLog} onCheckIn={(k) => onCheckIn(s.batchId, k)} emphasis="now" />
+          <SlotCard slot={s} state={s.state} ownSafety={notes.own(s)} nowMs={nowMs} timeZone={timeZone} canLog={canLog} onCheckIn={(k) => onCheckIn(s.batchId, k)} emphasis="now" />
         </div>
       ))}
       {p.next.map((s) => (
         <div key={s.batchId}>
           <p className="mb-1 text-sm font-bold uppercase tracking-wide">{t('next')}</p>
-          <SlotCard slot={s} nowMs={nowMs} timeZone={timeZone} canLog={canLog} onCheckIn={(k) => onCheckIn(s.batchId, k)} emphasis="next" />
+          <SlotCard slot={s} state={s.state} ownSafety={notes.own(s)} nowMs={nowMs} timeZone={timeZone} canLog={canLog} onCheckIn={(k) => onCheckIn(s.batchId, k)} emphasis="next" />
         </div>
       ))}
       {p.later.length > 0 && <p className="text-sm font-bold uppercase tracking-wide">{t('later')}</p>}
       {p.later.map((s) => (
-        <SlotCard key={s.batchId} slot={s} nowMs={nowMs} timeZone={timeZone} canLog={canLog} onCheckIn={(k) => onCheckIn(s.batchId, k)} emphasis="later" />
+        <SlotCard key={s.batchId} slot={s} state={s.state} ownSafety={notes.own(s)} nowMs={nowMs} timeZone={timeZone} canLog={canLog} onCheckIn={(k) => onCheckIn(s.batchId, k)} emphasis="later" />
       ))}
 
       {canLog && <ReadingForm cookerId={cooker.id} pots={cooker.pots} defaultPotId={p.current[0]?.potId ?? p.next[0]?.potId ?? null} onSubmit={onReading} />}
@@ -286,13 +309,13 @@ function CookerSection({ cooker, outbox, nowMs, timeZone, canLog, clock, onCheck
   );
 }
 
-function BackupList({ backup }: { backup: TodayData['backup'] }) {
+function BackupList({ backup, title }: { backup: TodayPageData['backup']; title: string }) {
   const t = useTranslations('today');
   const tr = useTranslations('plan.reasons');
   const format = useFormatter();
   return (
-    <section aria-labelledby="backup-title" className="card flex flex-col gap-2">
-      <h2 id="backup-title" className="text-xl font-bold">{t('backupTitle')}</h2>
+    <section aria-label={title} className="card flex flex-col gap-2">
+      <h2 className="text-xl font-bold">{title}</h2>
       <ul className="flex flex-col gap-2">
         {backup.map((b) => (
           <li key={b.batchId} className="rounded-lg bg-clay-100 px-3 py-2">
@@ -304,6 +327,30 @@ function BackupList({ backup }: { backup: TodayData['backup'] }) {
           </li>
         ))}
       </ul>
+    </section>
+  );
+}
+
+/** Tomorrow's published plan, for the evening's preparations (soak the beans, fill the water). */
+function Tomorrow({ data, clock }: { data: TodayPageData; clock: (ms: number) => string }) {
+  const t = useTranslations('today');
+  const format = useFormatter();
+  const d = data.tomorrow;
+  const date = (day: string) => format.dateTime(new Date(`${day}T12:00:00Z`), { weekday: 'long', day: 'numeric', month: 'long', timeZone: 'UTC' });
+  if (!d || !d.plan) return <p className="text-base text-clay-700">{t('tomorrowNone')}</p>;
+  const slots = d.cookers.flatMap((c) => c.slots.map((s) => ({ ...s, cooker: c.name }))).sort((a, b) => a.startMs - b.startMs);
+  return (
+    <section aria-labelledby="tomorrow-title" className="card flex flex-col gap-2">
+      <h2 id="tomorrow-title" className="text-xl font-bold">{t('tomorrowTitle', { date: date(d.date) })}</h2>
+      <p>{t('summary', { sun: d.servings.onSun, backup: d.servings.backup })}</p>
+      <ul className="flex flex-col gap-1">
+        {slots.map((s) => (
+          <li key={s.batchId} className="rounded-lg bg-clay-100 px-3 py-2">
+            <span className="font-semibold">{clock(s.startMs)}</span> · {t('slotTitle', { dish: s.dishName, index: s.index, of: s.of })} · {s.cooker}, {s.potName}
+          </li>
+        ))}
+      </ul>
+      {d.backup.length > 0 && <BackupList backup={d.backup} title={t('backupTitle')} />}
     </section>
   );
 }

@@ -2,7 +2,8 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import type PgBoss from 'pg-boss';
 import { AlertJobSchema, KitchenSchema, PushSubscriptionSchema, type Kitchen } from '@/entities';
 import { QUEUES } from '@/lib/jobs/boss';
-import { loadDayState, getPublishedPlan, kitchenDate } from '@/lib/cooks/day';
+import { kitchenDate, loadMarks } from '@/lib/plans/day';
+import { getPublishedPlan } from '@/lib/plans/queries';
 import { audienceSubscriptions } from '@/lib/push/subscriptions';
 import { ALERT_TTL_S, alertPayload } from '@/lib/push/messages';
 import { sendWebPush, type PushOutcome, type PushPayload } from '@/lib/push/send';
@@ -10,7 +11,7 @@ import { getVapidKeys } from '@/lib/push/vapid';
 import { pushAgent } from '@/lib/push/agent';
 import { pruneRateCounters } from '@/lib/cooks/rate-limit';
 import { addDays } from '@/lib/time';
-import { scheduleAlertsForPlan, type Clock } from './schedule';
+import { rescheduleKitchenAlerts, type Clock } from './schedule';
 
 export interface AlertJobData {
   alertId: string;
@@ -46,12 +47,12 @@ export async function handleAlertJob(em: EntityManager, boss: PgBoss, jobId: str
   const kitchen = row.kitchen;
   if (row.kind === 'ready' || row.kind === 'store-low') {
     const latest = await getPublishedPlan(em, kitchen.id, row.date);
-    const state = latest?.id === row.planId ? await loadDayState(em, kitchen, Date.now(), row.date) : null;
-    const st = row.batchId ? state?.status[row.batchId] : undefined;
-    if (!state || st?.skippedMs || st?.doneMs) {
+    const marks = latest?.id === row.planId ? await loadMarks(em, kitchen.id, row.date) : null;
+    const st = row.batchId ? marks?.[row.batchId] : undefined;
+    if (!marks || st?.skippedMs !== undefined || st?.doneMs !== undefined) {
       row.state = 'cancelled';
       await em.flush();
-      return { skipped: !state ? 'plan superseded' : 'batch skipped or done' };
+      return { skipped: !marks ? 'plan superseded' : 'batch skipped or done' };
     }
   }
   const subs = await audienceSubscriptions(em, kitchen.id, row.kind === 'ready' ? 'kitchen' : 'leads');
@@ -130,7 +131,7 @@ export async function reconcileAlerts(em: EntityManager, boss: PgBoss, clock?: C
     for (const date of [today, addDays(today, 1)]) {
       const plan = await getPublishedPlan(em, k.id, date);
       if (!plan) continue;
-      const sum = await scheduleAlertsForPlan({ em: em.fork(), boss, ...(clock ? { clock } : {}) }, plan.id);
+      const sum = await rescheduleKitchenAlerts({ em: em.fork(), boss, ...(clock ? { clock } : {}) }, k, date);
       n += sum.scheduled + sum.moved;
     }
   }

@@ -11,6 +11,8 @@ export const ACTIONS = {
   'log-cooking': ['lead', 'cook'],
   /** Cookers, dishes, menus, plans, uploads. */
   plan: ['lead'],
+  /** See draft plans (cooks work from published plans only). */
+  'see-drafts': ['coordinator', 'lead'],
   /** Kitchen settings (location, time zone), create kitchens. */
   'manage-kitchen': ['coordinator'],
   /** Invite people to the kitchen (leads may invite cooks only; see canInviteRole). */

@@ -13,13 +13,8 @@ import { addDays, localDateString } from '@/lib/time';
 import { normalisePots, toApertureGeometry, toCookerSpec } from './spec';
 
 export { toApertureGeometry, toCookerSpec } from './spec';
-
-/** The store medium of a cooker: built-in (lib/materials) or the organisation's custom table. */
-export function cookerMedium(c: Pick<Cooker, 'mediumId' | 'customMedium'>): { kind: 'oil' | 'pcm' | 'custom'; name: string; smokePointC: number | null } {
-  if (c.mediumId === 'custom') return { kind: 'custom', name: c.customMedium?.name ?? 'custom', smokePointC: c.customMedium?.smokePointC ?? null };
-  const m = getMedium(c.mediumId);
-  return { kind: m.kind, name: m.name, smokePointC: m.smokePointC ?? null };
-}
+export { cookerMedium } from './medium';
+import { cookerMedium } from './medium';
 
 export function describeCooker(c: Cooker) {
   return {

@@ -6,9 +6,9 @@ import { getCooker } from '@/lib/cookers';
 import { unprocessable } from '@/lib/http/errors';
 import { localDateString, zonedDayBoundsMs } from '@/lib/time';
 import type { ManualReadingInput, SensorReadingsInput } from '@/lib/validations/cooks';
-import { CLOCK_SKEW_MS } from './day';
+import { rescheduleAlertsAfterCommit } from '@/lib/alerts/reschedule';
+import { CLOCK_SKEW_MS } from '@/lib/plans/day';
 import { idempotent } from './idempotency';
-import { afterCooksWrite } from './after-write';
 
 export function describeReading(r: Reading) {
   return { id: r.id, cookerId: r.cooker.id, at: r.at.toISOString(), storeC: r.storeC, potC: r.potC, potId: r.potId, source: r.source };
@@ -26,7 +26,8 @@ export async function recordManualReading(access: KitchenAccess, input: ManualRe
     const row = tx.create(ReadingSchema, { id: randomUUID(), kitchen, cooker, at: new Date(atMs), storeC: input.storeC ?? null, potC: input.potC ?? null, potId: input.potId ?? null, source: 'manual', user, apiKeyId: null });
     return { status: 201, body: describeReading(row) };
   });
-  if (!r.replay) await afterCooksWrite({ kind: 'reading', em, kitchen, cookerId: input.cookerId }, { now: () => nowMs });
+  // The reading's own day: a reading typed after midnight for the evening before re-predicts that day.
+  if (!r.replay) await rescheduleAlertsAfterCommit(em, kitchen, localDateString(atMs, kitchen.timeZone), { now: () => nowMs });
   return r;
 }
 
@@ -57,7 +58,7 @@ export async function recordSensorReadings(em: EntityManager, key: CookerApiKey,
     await tx.nativeUpdate(CookerApiKeySchema, { id: key.id }, { lastUsedAt: new Date(nowMs) });
     return { status: 201, body: { accepted: input.readings.length, cookerId: key.cooker.id, from: new Date(first.at).toISOString(), to: new Date(input.readings[input.readings.length - 1]!.at).toISOString() } };
   });
-  if (!r.replay) await afterCooksWrite({ kind: 'reading', em, kitchen, cookerId: key.cooker.id }, { now: () => nowMs });
+  if (!r.replay) await rescheduleAlertsAfterCommit(em, kitchen, localDateString(Date.parse(input.readings[input.readings.length - 1]!.at), kitchen.timeZone), { now: () => nowMs });
   return r;
 }
 

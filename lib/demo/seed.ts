@@ -5,7 +5,8 @@ import { hashPassword } from '@/lib/auth/password';
 import { DEMO_COOKERS } from './cookers';
 import { DEMO_DISHES, DEMO_MENUS } from './menus';
 import { DishSchema, MenuLineSchema, PlanSchema } from '@/entities';
-import { createDraft, publishDraft } from '@/lib/plans';
+import { publishDraft, solveDraft } from '@/lib/drafts';
+import { zonedDayBoundsMs } from '@/lib/time';
 import { addDays, localDateString } from '@/lib/time';
 
 /**
@@ -112,8 +113,10 @@ export async function seedDemoPlans(em: EntityManager, kitchens: Record<string, 
         await em.flush();
       }
       if ((await em.count(PlanSchema, { kitchen, date })) > 0) continue;
-      const draft = await createDraft(em, kitchen, null, date, opts.timeLimitS ?? 2);
-      if (publish) await publishDraft(em, kitchen, null, draft.id);
+      // Planned as the lead would have done it: the evening before the day.
+      const eveningBefore = zonedDayBoundsMs(date, kitchen.timeZone)[0] - 4 * 3600_000;
+      const draft = await solveDraft({ em, kitchen, actorId: null }, date, opts.timeLimitS ?? 2, eveningBefore);
+      if (publish) await publishDraft({ em, kitchen, actorId: null }, draft.id);
       done.push(`${kitchen.name} ${date}${publish ? ' (published)' : ' (draft)'}`);
     }
   }

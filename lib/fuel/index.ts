@@ -2,4 +2,3 @@
 export * from './factors';
 export * from './energy';
 export * from './backup';
-export * from './plan';

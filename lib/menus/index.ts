@@ -1,3 +1,4 @@
+import type { StoredBatch } from '@/entities/plan-records';
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { DishSchema, MenuLineSchema, type Cooker, type Dish, type Kitchen, type MenuLine } from '@/entities';
@@ -47,28 +48,8 @@ export async function copyMenu(access: KitchenAccess, fromDate: string, toDate: 
   );
 }
 
-export interface MenuBatch {
-  id: string;
-  lineId: string;
-  dishId: string;
-  dishName: string;
-  method: Dish['method'];
-  servings: number;
-  potVolumeNeededL: number;
-  foodKg: number;
-  foodCpJPerKgK: number;
-  waterKg: number;
-  minTempC: number;
-  holdS: number;
-  safeCoreTempC: number;
-  lidOn: boolean;
-  backupStove: string;
-  earliestStartMs: number;
-  serveByMs: number;
-  /** Index within its line (1-based) and how many batches the line makes. */
-  index: number;
-  of: number;
-}
+/** A batch of a menu line as planned and stored with the plan (entities/plan-records.ts). */
+export type MenuBatch = StoredBatch;
 
 /**
  * Splits menu lines into batches: as many as the recipe's batch size and the largest pot of the

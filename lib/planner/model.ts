@@ -12,6 +12,7 @@
  * earlier run predicted at r. For a well-mixed store that state is exact; for a stratified store
  * (nodes > 1) all layers restart at the mean, an approximation the final full re-check removes.
  */
+import { mergeShifts, potLoadEndMs, shiftEndOf } from './pot-loads';
 import { estimateBatchHeat } from '@/lib/fuel/energy';
 import type { PotLoad, SimulationResult, WeatherStep } from '@/lib/thermal/types';
 import type { PlannerBatch, PlannerCooker, PlannerProblem, SimulateFn } from './types';
@@ -140,17 +141,6 @@ export function removeBatch(loads: readonly Load[], b: number): Load[] {
   return loads.filter((l) => l.b !== b);
 }
 
-function mergeShifts(shifts: readonly { startMs: number; endMs: number }[]): { startMs: number; endMs: number }[] {
-  const s = shifts.map((x) => ({ startMs: x.startMs, endMs: x.endMs })).sort((a, b) => a.startMs - b.startMs);
-  const out: { startMs: number; endMs: number }[] = [];
-  for (const x of s) {
-    const last = out[out.length - 1];
-    if (last && x.startMs <= last.endMs) last.endMs = Math.max(last.endMs, x.endMs);
-    else out.push(x);
-  }
-  return out;
-}
-
 export function buildModel(problem: PlannerProblem): PModel {
   const slotMs = (problem.slotMinutes ?? 15) * 60_000;
   const cookers: PCooker[] = problem.cookers.map((c, idx) => {
@@ -239,8 +229,7 @@ function makeClock(timeZone: string): (ms: number) => string {
 
 /** End of the (merged) shift containing t [ms], or −1 when t is outside every shift. */
 export function shiftEndAt(m: PModel, t: number): number {
-  for (const s of m.shifts) if (t >= s.startMs && t < s.endMs) return s.endMs;
-  return -1;
+  return shiftEndOf(m.shifts, t);
 }
 
 /** First shift start strictly after t [ms], or Infinity. */
@@ -305,15 +294,8 @@ export class CookerEvaluator {
     for (let i = loads.length - 1; i >= 0; i--) {
       const l = loads[i] as Load;
       const b = this.m.batches[l.b] as PBatch;
-      let e = Math.min(b.serveBy, this.c.tEnd);
-      if (!b.fixed) {
-        const se = shiftEndAt(this.m, l.s);
-        e = se < 0 ? l.s : Math.min(e, se);
-      }
-      const nx = nextOnPot.get(l.p);
-      if (nx !== undefined) e = Math.min(e, nx - this.m.turnMs);
+      out[i] = potLoadEndMs(l.s, b.serveBy, this.c.tEnd, b.fixed ? null : shiftEndAt(this.m, l.s), nextOnPot.get(l.p), this.m.turnMs);
       nextOnPot.set(l.p, l.s);
-      out[i] = e;
     }
     return out;
   }

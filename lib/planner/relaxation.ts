@@ -14,7 +14,7 @@
  *
  * These feed the candidate filter of the search, the backup reasons and the upper bound (bound.ts).
  */
-import { boilingPointAtAltitude, WATER_CP_J_PER_KG_K } from '@/lib/fuel/energy';
+import { boilingPointAtAltitudeC as boilingPointAtAltitude, WATER_CP_J_PER_KG_K } from '@/lib/thermal/boiling';
 import type { WeatherStep } from '@/lib/thermal/types';
 import type { PotScreen } from './screen';
 import { ceilToGrid, nextShiftStart, shiftEndAt, type CookerEvaluator, type PBatch, type PCooker, type PModel } from './model';

@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import type { PlannerProblem } from '@/lib/planner';
-import { planDayOffThread } from '@/lib/planner/thread';
+import { planDayOffThread } from '@/lib/planner-thread';
 import { normalisePots, toCookerSpec } from '@/lib/cookers/spec';
 import { unprocessable } from '@/lib/http/errors';
 import type { inlineProblemSchema } from '@/lib/validations/planner';

@@ -4,7 +4,7 @@
  *
  * Conventions (lib/GLOSSARY.md): epoch ms UTC, irradiance [W/m²], temperatures [°C], wind [m/s], angles [°].
  */
-import type { WeatherStep } from '../thermal/types';
+import type { WeatherStep } from '@/lib/weather-step';
 import { DEG_TO_RAD, limitDegrees } from './angles';
 import { assertLinkeTurbidityMonthly, clearSkyIneichenPerez2002, linkeTurbidityForMonth } from './clearsky';
 import {

@@ -69,17 +69,7 @@ export interface CookerSpec {
   pots: PotSpec[];
 }
 
-/** One step of driving weather, already resolved to the cooker's aperture. */
-export interface WeatherStep {
-  /** Start of the step [epoch ms]. Steps are contiguous and equally spaced. */
-  t: number;
-  /** Irradiance usable by the collector on its aperture [W/m²] (beam-only for concentrators). */
-  gApertureWm2: number;
-  /** Ambient air temperature [°C]. */
-  tAirC: number;
-  /** Wind speed [m/s]; optional. */
-  windMS?: number;
-}
+export type { WeatherStep } from '@/lib/weather-step';
 
 /** A batch of food cooking in one pot. */
 export interface PotLoad {

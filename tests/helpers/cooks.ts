@@ -7,9 +7,9 @@ import { inject } from 'vitest';
 import { CookerSchema, DishSchema, KitchenSchema, MenuLineSchema, type Kitchen, type Plan } from '../../entities';
 import { DEMO_COOKERS } from '../../lib/demo/cookers';
 import { DEMO_DISHES } from '../../lib/demo/menus';
-import { createDraft, publishDraft } from '../../lib/plans';
+import { publishDraft, solveDraft } from '../../lib/drafts';
 import type { PlannerResult } from '../../lib/planner';
-import { localDateString } from '../../lib/time';
+import { localDateString, zonedDayBoundsMs } from '../../lib/time';
 import type { PushDelivery } from '../../lib/fakes/push';
 
 /**
@@ -36,9 +36,10 @@ export async function publishPlanFor(em: EntityManager, kitchenId: string, date 
   em.create(MenuLineSchema, { kitchen, date, dish: dishes[0]!, servings: 300, serveBy: '10:30', earliestStart: '07:00', position: 0 });
   em.create(MenuLineSchema, { kitchen, date, dish: dishes[1]!, servings: 260, serveBy: '13:00', earliestStart: null, position: 1 });
   await em.flush();
-  const draft = await createDraft(em, kitchen, null, date, 1);
-  const plan = await publishDraft(em, kitchen, null, draft.id);
-  return { kitchen, plan, cookerId: cooker.id, date, slots: (plan.result as PlannerResult).slots };
+  // Solved as a lead would have done it, the evening before (a same-day solve plans from "now" on).
+  const draft = await solveDraft({ em, kitchen, actorId: null }, date, 1, zonedDayBoundsMs(date, kitchen.timeZone)[0] - 4 * 3600_000);
+  const plan = await publishDraft({ em, kitchen, actorId: null }, draft.id);
+  return { kitchen, plan, cookerId: cooker.id, date, slots: plan.result.slots };
 }
 
 /** A browser-like push subscription on the push fake, with the keys to read what arrives. */

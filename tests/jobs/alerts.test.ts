@@ -15,13 +15,13 @@ import type { KitchenAccess } from '../../lib/auth/guard';
 import { QUEUES, startBoss } from '../../lib/jobs/boss';
 import { registerWorkers } from '../../lib/jobs/worker';
 import { stopBossClient } from '../../lib/jobs/client';
-import { scheduleAlertsForPlan, type Clock } from '../../lib/alerts/schedule';
+import { rescheduleKitchenAlerts, type Clock } from '../../lib/alerts/schedule';
 import { recordCheckIn } from '../../lib/cooks/check-ins';
 import { recordManualReading } from '../../lib/cooks/readings';
-import { getTodayView } from '../../lib/cooks/today';
-import { createDraft, publishDraft, type PlanCookerView } from '../../lib/plans';
-import type { PlannerResult } from '../../lib/planner';
-import { addDays, localDateString, zonedTimeToUtcMs } from '../../lib/time';
+import { getTodayPage } from '../../lib/cooks/today';
+import { publishDraft, solveDraft } from '../../lib/drafts';
+import type { Kitchen, PlanCookerView } from '../../entities';
+import { addDays, localDateString, zonedDayBoundsMs, zonedTimeToUtcMs } from '../../lib/time';
 import { closeTestOrm, createWorld, testOrm, type World } from '../helpers/fixtures';
 import { fakeDeliveries, makeSubscription, publishPlanFor, waitUntil } from '../helpers/cooks';
 
@@ -33,6 +33,7 @@ let cookerId: string;
 let date: string;
 let slots: { batchId: string; readyMs: number; startMs: number }[];
 let series: PlanCookerView['series'];
+let kitchen: Kitchen;
 
 const em = async () => (await testOrm()).em.fork();
 const clockAt = (ms: number): Clock => ({ now: () => ms });
@@ -57,7 +58,8 @@ beforeAll(async () => {
   planId = p.plan.id;
   cookerId = p.cookerId;
   slots = p.slots;
-  series = (p.plan.cookers as PlanCookerView[])[0]!.series;
+  series = p.plan.cookers[0]!.series;
+  kitchen = p.kitchen;
   boss = await startBoss(inject('databaseUrl'));
 });
 afterAll(async () => {
@@ -84,7 +86,7 @@ describe('ready alerts', () => {
       expect(Math.abs(j!.startAfter.getTime() - s.readyMs)).toBeLessThanOrEqual(1000);
     }
     // Scheduling again changes nothing (idempotent).
-    const again = await scheduleAlertsForPlan({ em: await em(), boss }, planId);
+    const again = await rescheduleKitchenAlerts({ em: await em(), boss }, kitchen, date);
     expect(again).toMatchObject({ scheduled: 0, moved: 0, cancelled: 0, kept: rows.length });
   });
 
@@ -98,7 +100,7 @@ describe('ready alerts', () => {
     const realBefore = Date.now();
     const r = await recordManualReading(await cookAccess(), { idempotencyKey: randomUUID(), cookerId, at: new Date(nowMs).toISOString(), storeC: predicted - 20 }, nowMs);
     expect(r.status).toBe(201);
-    const view = await getTodayView(await em(), (await cookAccess()).kitchen, 'cook', nowMs);
+    const view = await getTodayPage(await em(), (await cookAccess()).kitchen, 'cook', nowMs);
     const steered = new Map(view.cookers.flatMap((c) => c.slots).map((s) => [s.batchId, s]));
     const after = await alertsOf();
     let moved = 0;
@@ -149,7 +151,7 @@ describe('ready alerts', () => {
     const target = (await alertsOf()).find((r) => r.state === 'scheduled')!;
     await e.nativeUpdate(AlertJobSchema, { id: target.id }, { state: 'cancelled' });
     const sentAt = Date.now();
-    const sum = await scheduleAlertsForPlan({ em: await em(), boss, clock: clockAt(target.fireAt.getTime() - 3000) }, planId);
+    const sum = await rescheduleKitchenAlerts({ em: await em(), boss, clock: clockAt(target.fireAt.getTime() - 3000) }, kitchen, date);
     // The target, and any alert the skipped slot's freed heat brought back within reach.
     expect(sum.scheduled).toBeGreaterThanOrEqual(1);
     expect((await alertsOf()).find((a) => a.id === target.id)?.state).toBe('scheduled');
@@ -171,8 +173,8 @@ describe('ready alerts', () => {
     const kitchen = (await cookAccess()).kitchen;
     const before = await e.find(AlertJobSchema, { planId, state: 'scheduled' });
     expect(before.length).toBeGreaterThan(0);
-    const draft = await createDraft(e, kitchen, null, date, 1);
-    const next = await publishDraft(e, kitchen, null, draft.id);
+    const draft = await solveDraft({ em: e, kitchen, actorId: null }, date, 1, zonedDayBoundsMs(date, TZ)[0] - 4 * 3600_000);
+    const next = await publishDraft({ em: e, kitchen, actorId: null }, draft.id);
     expect(next.version).toBe(2);
     for (const old of before) {
       expect((await (await em()).findOneOrFail(AlertJobSchema, { id: old.id })).state).toBe('cancelled');
@@ -180,7 +182,7 @@ describe('ready alerts', () => {
     }
     const fresh = await (await em()).find(AlertJobSchema, { planId: next.id, kind: 'ready', state: 'scheduled' });
     const skipped = new Set((await (await em()).find(CheckInSchema, { kitchen: w.kitchenA.id, date, kind: 'skipped' })).map((c) => c.batchId));
-    const expected = (next.result as PlannerResult).slots.filter((s) => !skipped.has(s.batchId));
+    const expected = next.result.slots.filter((s) => !skipped.has(s.batchId));
     expect(fresh.map((r) => r.batchId).sort()).toEqual(expected.map((s) => s.batchId).sort());
     for (const r of fresh) expect((await job(r.jobId))?.state).toBe('created');
     planId = next.id; // afterAll cancels what is left of the new version

@@ -6,10 +6,10 @@ import type { OutboxEntry } from '@/lib/client/outbox';
 
 const H = 3_600_000;
 const slot = (batchId: string, startH: number, over: Partial<TodaySlot> = {}): TodaySlot => ({
-  batchId, dishName: 'Rice', index: 1, of: 1, servings: 100, method: 'boil', potId: 'p1', potName: 'Pot 1',
-  startMs: startH * H, readyMs: startH * H + 0.5 * H, doneMs: startH * H + H, plannedReadyMs: startH * H + 0.5 * H, readySource: 'plan',
-  serveByMs: startH * H + 2 * H, minTempC: 90, safeCoreTempC: 74, storeAtStartC: 150, potMaxC: 96, status: 'planned',
-  startedAt: null, doneAt: null, skippedAt: null, safety: [], ...over,
+  batchId, cookerId: 'c1', dishName: 'Rice', index: 1, of: 1, servings: 100, method: 'boil', potId: 'p1', potName: 'Pot 1',
+  startMs: startH * H, plannedStartMs: startH * H, readyMs: startH * H + 0.5 * H, doneMs: startH * H + H, plannedReadyMs: startH * H + 0.5 * H, readySource: 'plan',
+  serveByMs: startH * H + 2 * H, minTempC: 90, safeCoreTempC: 74, storeAtStartC: 150, potMaxC: 96, status: 'planned', state: 'planned',
+  startedAt: null, doneAt: null, skippedAt: null, fixed: false, safety: [], ...over,
 });
 const entry = (batchId: string, kind: string, state: OutboxEntry['state'] = 'pending'): OutboxEntry => ({
   id: `${batchId}-${kind}`, userId: 'u', kitchenId: 'k', kind: 'check-in', url: '/x', body: { batchId, kind, at: new Date(9 * H).toISOString() }, createdAt: 9 * H, attempts: 0, state,

@@ -1,5 +1,5 @@
 /**
- * The planner thread (lib/planner/thread.ts): plans made on a worker thread are the planner's own
+ * The planner thread (lib/planner-thread/index.ts): plans made on a worker thread are the planner's own
  * plans, refusals keep their kind, several problems queue without mixing, and the calling thread's
  * event loop keeps running while a plan is made.
  */
@@ -7,10 +7,10 @@ import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { planDay, warmPlanner } from '@/lib/planner';
-import { planDayOffThread, plannerThreadEnabled, stopPlannerThread } from '@/lib/planner/thread';
+import { planDayOffThread, plannerThreadEnabled, stopPlannerThread } from '@/lib/planner-thread';
 // @ts-expect-error — a plain ES module script without type declarations.
 import { bundlePlannerThread } from '../../../scripts/build-planner-thread.mjs';
-import { makeInstance, makeSmall } from './fixtures';
+import { makeInstance, makeSmall } from '../planner/fixtures';
 
 let dir = '';
 let file = '';

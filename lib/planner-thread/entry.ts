@@ -1,12 +1,12 @@
 /**
  * Entry of the planner thread (bundled by scripts/build-planner-thread.mjs into
- * .next/planner-thread.mjs; see lib/planner/thread.ts). Plans the posted problems one after another
+ * .next/planner-thread.mjs; see lib/planner-thread/index.ts). Plans the posted problems one after another
  * with planDay — one at a time, so that each gets its whole time limit — and posts each result back;
  * a refusal keeps its error name so the caller can tell bad input (RangeError) from a fault.
  */
 import { parentPort } from 'node:worker_threads';
-import { planDay, warmPlanner } from './plan';
-import type { PlannerProblem } from './types';
+import { planDay, warmPlanner } from '@/lib/planner';
+import type { PlannerProblem } from '@/lib/planner';
 
 const port = parentPort;
 if (port) {

@@ -4,7 +4,8 @@
  * answered. One thread per process, started on first use, kept (HiGHS stays compiled in it) and
  * unref'd while idle; problems queue in it and are planned one after another.
  *
- * The thread runs a bundle of lib/planner (.next/planner-thread.mjs, made by
+ * The adapter between the web server and the planner core (lib/planner knows nothing of threads, builds
+ * or the environment). The thread runs a bundle of lib/planner (.next/planner-thread.mjs, made by
  * scripts/build-planner-thread.mjs with every build). It is used by the production server (`next
  * start`: NODE_ENV production and Next's NEXT_RUNTIME nodejs) when the bundle is there; scripts (the
  * demo loader), `next dev` (its bundle could be stale) and PLANNER_THREAD=0 plan inline with the same
@@ -14,8 +15,8 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { planDay } from './plan';
-import type { PlannerProblem, PlannerResult } from './types';
+import { planDay } from '@/lib/planner';
+import type { PlannerProblem, PlannerResult } from '@/lib/planner';
 
 export const PLANNER_THREAD_FILE = path.join(process.cwd(), '.next', 'planner-thread.mjs');
 

@@ -1,5 +1,5 @@
 /**
- * Steering a cooker's day by what was measured: re-simulates the store and the pots from the latest
+ * Re-predicting a cooker's day from what was measured: re-simulates the store and the pots from the latest
  * reading (its time, its store temperature) instead of from the morning's predicted state, so the
  * ready times and the lead's warnings follow the real store. Pure: no ORM, no framework.
  *
@@ -11,8 +11,10 @@
  * already reached its minimum temperature, it keeps that ready time and holds for what is left.
  */
 import { simulateCooker, type CookerSpec, type PotLoad, type SimulationResult, type WeatherStep } from '@/lib/thermal';
+import { potLoadsForSlots, type PotLoadBatch } from '@/lib/planner/pot-loads';
+import type { Shift } from '@/lib/planner/types';
 
-export interface SteerSlot {
+export interface PlannedTimes {
   batchId: string;
   potId: string;
   /** Planned start, ready (pot ≥ minimum) and done times [epoch ms]. */
@@ -21,25 +23,17 @@ export interface SteerSlot {
   doneMs: number;
 }
 
-export interface SteerBatch {
-  foodKg: number;
-  foodCpJPerKgK: number;
-  waterKg: number;
-  lidOn: boolean;
-  /** Dish's minimum pot temperature [°C] held for holdS [s]. */
-  minTempC: number;
-  holdS: number;
-  serveByMs: number;
-}
+/** What the re-prediction needs of a batch: the pot load's fields and its serve-by time. */
+export type RepredictBatch = PotLoadBatch;
 
 /** What the cooks marked: when a batch was started, finished or skipped [epoch ms]. */
-export interface SteerStatus {
+export interface CookMarks {
   startedMs?: number;
   doneMs?: number;
   skippedMs?: number;
 }
 
-export interface SteerReading {
+export interface RepredictReading {
   atMs: number;
   /** Measured store temperature [°C]; null for a pot-only reading. */
   storeC: number | null;
@@ -48,7 +42,7 @@ export interface SteerReading {
   potId?: string | null;
 }
 
-export interface SteerInput {
+export interface RepredictInput {
   spec: CookerSpec;
   /** The local day's aperture weather, contiguous 60-s steps (lib/prediction prepareDay). */
   steps: WeatherStep[];
@@ -56,15 +50,17 @@ export interface SteerInput {
   initialStoreTempC: number;
   altitudeM: number;
   turnaroundS: number;
+  /** The kitchen's shifts that day: a pot not yet started comes off at its shift's end. */
+  shifts: readonly Shift[];
   /** This cooker's slots of the published plan. */
-  slots: SteerSlot[];
-  batches: Record<string, SteerBatch>;
-  status: Record<string, SteerStatus>;
+  slots: PlannedTimes[];
+  batches: Record<string, RepredictBatch>;
+  status: Record<string, CookMarks>;
   /** Latest reading of this cooker today, or null. */
-  reading: SteerReading | null;
+  reading: RepredictReading | null;
 }
 
-export interface SteeredSlot {
+export interface RepredictedSlot {
   batchId: string;
   /** When the pot reaches (or reached) the dish's minimum [epoch ms]; null when the prediction says it will not. */
   readyMs: number | null;
@@ -74,8 +70,8 @@ export interface SteeredSlot {
   source: 'plan' | 'reading';
 }
 
-export interface SteerResult {
-  slots: Record<string, SteeredSlot>;
+export interface Reprediction {
+  slots: Record<string, RepredictedSlot>;
   /** Time the prediction starts from [epoch ms]: the reading's, or null for the plan. */
   fromMs: number | null;
   /** Predicted store temperature [°C] at each 60-s step boundary from fromMs (or midnight). */
@@ -84,34 +80,32 @@ export interface SteerResult {
   maxStoreTempC: number;
 }
 
-/** The simulator's loads for a cooker's slots: skipped batches left out, actual starts used, hard stops as the planner sets them. */
-export function buildLoads(input: Pick<SteerInput, 'slots' | 'batches' | 'status' | 'turnaroundS' | 'steps'>): PotLoad[] {
-  const endOfDay = (input.steps[input.steps.length - 1]?.t ?? 0) + 60_000;
-  const live = input.slots
+/**
+ * The simulator's loads for a cooker's slots under the cooks' marks: skipped batches left out, actual
+ * starts used (a started batch is where it is: not clipped by its shift), a batch marked done stops
+ * then; the rest is the planner's pot-load rule (lib/planner/pot-loads.ts).
+ */
+export function loadsFromMarks(input: Pick<RepredictInput, 'slots' | 'batches' | 'status' | 'turnaroundS' | 'steps' | 'shifts'>): PotLoad[] {
+  const weatherEndMs = (input.steps[input.steps.length - 1]?.t ?? 0) + 60_000;
+  const slots = input.slots
     .filter((s) => !input.status[s.batchId]?.skippedMs && input.batches[s.batchId])
-    .map((s) => ({ s, startMs: input.status[s.batchId]?.startedMs ?? s.startMs }))
-    .sort((a, b) => a.startMs - b.startMs);
-  const loads: PotLoad[] = [];
-  for (const { s, startMs } of live) {
-    const b = input.batches[s.batchId]!;
-    const next = live.find((o) => o.s.potId === s.potId && o.startMs > startMs);
-    const doneAt = input.status[s.batchId]?.doneMs;
-    const maxEndMs = Math.min(b.serveByMs, next ? next.startMs - input.turnaroundS * 1000 : Infinity, doneAt ?? Infinity, endOfDay);
-    // A batch started so late that it runs into the next one on its pot is left out (the simulator refuses overlaps).
-    if (maxEndMs <= startMs + 60_000) continue;
-    loads.push({ id: s.batchId, potId: s.potId, startMs, foodKg: b.foodKg, foodCpJPerKgK: b.foodCpJPerKgK, waterKg: b.waterKg, lidOn: b.lidOn, minTempC: b.minTempC, holdS: b.holdS, maxEndMs });
-  }
-  return loads;
+    .map((s) => {
+      const marks = input.status[s.batchId];
+      return { batchId: s.batchId, potId: s.potId, startMs: marks?.startedMs ?? s.startMs, fixed: marks?.startedMs !== undefined, ...(marks?.doneMs !== undefined ? { stopMs: marks.doneMs } : {}) };
+    });
+  const loads = potLoadsForSlots(slots, new Map(Object.entries(input.batches)), { shifts: input.shifts, turnaroundS: input.turnaroundS, weatherEndMs });
+  // A batch started so late that it runs into the next one on its pot is left out (the simulator refuses overlaps).
+  return loads.filter((l) => l.maxEndMs > l.startMs + 60_000);
 }
 
-const fromPlan = (slots: SteerSlot[], status: Record<string, SteerStatus>): Record<string, SteeredSlot> =>
+const fromPlan = (slots: PlannedTimes[], status: Record<string, CookMarks>): Record<string, RepredictedSlot> =>
   Object.fromEntries(slots.filter((s) => !status[s.batchId]?.skippedMs).map((s) => [s.batchId, { batchId: s.batchId, readyMs: s.readyMs, doneMs: s.doneMs, source: 'plan' as const }]));
 
 /** Re-simulates a cooker's day from its latest reading; without one (or one outside the day) the plan's times stand. */
-export function steerCooker(input: SteerInput): SteerResult {
+export function repredictFromReading(input: RepredictInput): Reprediction {
   const { steps } = input;
   const t0Day = steps[0]?.t ?? 0;
-  const loads = buildLoads(input);
+  const loads = loadsFromMarks(input);
   const baseline: SimulationResult = simulateCooker(input.spec, steps, { stepS: 60, initialStoreTempC: input.initialStoreTempC, altitudeM: input.altitudeM, loads });
   const r = input.reading;
   const lastT = steps[steps.length - 1]?.t ?? t0Day;
@@ -160,8 +154,8 @@ export function steerCooker(input: SteerInput): SteerResult {
   return { slots: out, fromMs: t0, series: { t: sim.series.t, storeTempC: sim.series.storeTempC }, maxStoreTempC: Math.max(...sim.series.storeTempC) };
 }
 
-/** Predicted store temperature at an instant [°C] from a steering result's series (nearest earlier step). */
-export function storeTempAt(result: SteerResult, atMs: number): number | null {
+/** Predicted store temperature at an instant [°C] from a re-prediction's series (nearest earlier step). */
+export function storeTempAt(result: Reprediction, atMs: number): number | null {
   const { t, storeTempC } = result.series;
   if (!t.length || atMs < t[0]!) return null;
   const i = Math.min(t.length - 1, Math.floor((atMs - t[0]!) / 60_000));

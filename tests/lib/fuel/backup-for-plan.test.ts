@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { backupFuelForPlan, comparePlanWithAllOnWood } from '@/lib/fuel';
+/** Backup fuel of a plan's batches (lib/fuel/backup.ts), given planner batches as they are. */
+import { compareWithAllOnWood, planBackupFuel } from '@/lib/fuel';
 import type { PlannerBatch } from '@/lib/planner/types';
 
 // A bake batch that stays below boiling: useful heat (5·3500 + 0.12·20·900)·(75 − 25) + 2·4186·(75 − 25) J
@@ -29,7 +30,8 @@ describe('backup fuel for a plan', () => {
     { batchId: 'c', reason: 'no-free-pot' as const, detail: '' },
   ];
   it('counts only the backup batches, per day, LPG at 55 % and 47.3 MJ/kg (IPCC 2006 Vol. 2 Table 1.2)', () => {
-    const r = backupFuelForPlan(batches, backup, { ambientC: 25, altitudeM: 0, stove: 'lpg' });
+    const ids = new Set(backup.map((x) => x.batchId));
+    const r = planBackupFuel(batches.filter((b) => ids.has(b.id)), { ambientC: 25, altitudeM: 0, stove: 'lpg' });
     expect(r.perBatch.map((x) => x.batchId)).toEqual(['b', 'c']);
     expect(r.perDay.map((d) => [d.day, d.batches])).toEqual([
       ['2024-03-20', 1],
@@ -38,7 +40,7 @@ describe('backup fuel for a plan', () => {
     expect(r.total.amountByFuel.lpg).toBeCloseTo((2 * HEAT_J) / 0.55 / 47.3e6, 9);
   });
   it('all on wood: three batches on a 15 % fire, the sun avoids the wood of one', () => {
-    const c = comparePlanWithAllOnWood(batches, backup, { ambientC: 25, altitudeM: 0, stove: 'lpg' });
+    const c = compareWithAllOnWood(batches, backup.map((x) => x.batchId), { ambientC: 25, altitudeM: 0, stove: 'lpg' });
     expect(c.allOnWood.amountByFuel.wood).toBeCloseTo((3 * HEAT_J) / 0.15 / 15.6e6, 9);
     expect(c.woodAvoidedKg).toBeCloseTo(HEAT_J / 0.15 / 15.6e6, 9);
     expect(c.solarShareOfHeat).toBeCloseTo(1 / 3, 12);
