@@ -88,7 +88,7 @@ export function DishLibrary({ kitchenId, canEdit, initialDishes }: { kitchenId: 
           )}
         </div>
       </div>
-      {canEdit && <p className="text-xs text-clay-700">{t('importHint', { columns: CSV_COLUMNS })}</p>}
+      {canEdit && <p className="break-all text-xs text-clay-700">{t('importHint', { columns: CSV_COLUMNS })}</p>}
       <Status message={status?.msg ?? null} tone={status?.tone} />
       {importErrors.length > 0 && (
         <ul className="card list-disc pl-8 text-sm text-ember-800">
@@ -117,7 +117,7 @@ export function DishLibrary({ kitchenId, canEdit, initialDishes }: { kitchenId: 
       {dishes.length === 0 && <p className="card">{t('empty')}</p>}
       {dishes.length > 0 && rows.length === 0 && <p className="card">{t('noMatch')}</p>}
       {rows.length > 0 && (
-        <div className="card overflow-x-auto p-0">
+        <div className="card relative overflow-x-auto p-0">
           <table className="w-full text-left text-sm">
             <thead className="bg-clay-100">
               <tr>

@@ -1,6 +1,6 @@
 'use client';
 
-import { useTranslations } from 'next-intl';
+import { useLocale, useTranslations } from 'next-intl';
 import { useCallback, useState } from 'react';
 import type { z } from 'zod';
 import { apiFetch, type ApiResult } from '@/lib/client/api';
@@ -30,6 +30,7 @@ export interface SubmitOptions<T> extends Omit<IssueOptions, 'input'> {
 export function useFormSubmit() {
   const tc = useTranslations('common');
   const tv = useTranslations('validation');
+  const locale = useLocale();
   const [busy, setBusy] = useState(false);
   const [fields, setFields] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<FormStatus>(null);
@@ -39,7 +40,7 @@ export function useFormSubmit() {
       if (o.schema) {
         const parsed = o.schema.safeParse(o.body);
         if (!parsed.success) {
-          const issues = formIssues(parsed.error, tv as unknown as Translate, { describe: o.describe, formats: o.formats, input: o.body });
+          const issues = formIssues(parsed.error, tv as unknown as Translate, { describe: o.describe, formats: o.formats, input: o.body, schemaLanguage: locale === 'en' });
           setFields(issues.fields);
           setStatus({ msg: issues.summary, tone: 'error' });
           return undefined;
@@ -59,7 +60,7 @@ export function useFormSubmit() {
       await o.onOk?.(r.data);
       return r.data;
     },
-    [tc, tv],
+    [tc, tv, locale],
   );
 
   return { busy, fields, setFields, status, setStatus, submit };

@@ -17,7 +17,15 @@ export interface IssueOptions {
   formats?: Record<string, string>;
   /** The values that were checked, to tell an empty field ("Required.") from a wrong one. */
   input?: unknown;
+  /**
+   * The reader reads the schemas' language (English): show a message the schema wrote itself (it names the
+   * quantity and its unit, as the API does), and word only zod's own generic ones.
+   */
+  schemaLanguage?: boolean;
 }
+
+/** zod's built-in English messages (none of the schemas' own starts like these). */
+const ZOD_DEFAULT_MESSAGE = /^(Invalid\b|Too (small|big):|Unrecognized key)/;
 
 function valueAt(input: unknown, path: readonly PropertyKey[]): unknown {
   let v = input;
@@ -36,6 +44,7 @@ const isEmpty = (v: unknown) => v === undefined || v === null || (typeof v === '
  * in `params.i18n`.
  */
 export function issueMessage(issue: z.core.$ZodIssue, t: Translate, opts: IssueOptions = {}): string {
+  if (opts.schemaLanguage && issue.message && !ZOD_DEFAULT_MESSAGE.test(issue.message)) return issue.message;
   const value = valueAt(opts.input, issue.path);
   const last = issue.path[issue.path.length - 1];
   switch (issue.code) {

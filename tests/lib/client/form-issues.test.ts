@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { formIssues, type Translate } from '@/lib/client/form-issues';
 import en from '@/lib/i18n/messages/en.json';
 import fr from '@/lib/i18n/messages/fr.json';
+import { cookerBaseSchema as createCookerSchema } from '@/lib/validations/cookers';
 import { createDishSchema } from '@/lib/validations/dishes';
 import { putMenuSchema } from '@/lib/validations/menus';
 import { planningSettingsSchema } from '@/lib/validations/plans';
@@ -48,6 +49,19 @@ describe('form issues from the route schemas', () => {
     expect(fields['lines.1.serveBy']).toBe('Indiquez une heure sur 24 h au format HH:MM, p. ex. 12:30.');
     expect(fields['lines.2.dishId']).toBe('Choisissez une des options.');
     expect(fields['lines.3.earliestStart']).toBe('Le début au plus tôt doit précéder l’heure de service.');
+  });
+
+  it('shows an English reader the schema’s own message, and words zod’s generic ones', () => {
+    const body = { lines: [line({ servings: 0 }), line({ dishId: '' })] };
+    const t = tr('en');
+    const { fields, summary } = formIssues(putMenuSchema.safeParse(body).error!, t, { describe: where(t), input: body, schemaLanguage: true });
+    expect(fields).toEqual({ 'lines.0.servings': 'At least 1 serving.', 'lines.1.dishId': 'Choose a dish.' });
+    expect(summary).toBe('Line 1, servings: At least 1 serving.');
+    // A bound the schema left to zod's default wording ("Too big: expected string to have <=40 characters").
+    const pots = [{ id: 'x'.repeat(41), name: 'Pot', volumeL: 40, massKg: 4, coupling: { kind: 'constant', uaWPerK: 5 }, lidAreaM2: 0.2, lidUWPerM2K: 6 }];
+    const r = createCookerSchema.shape.pots.safeParse(pots);
+    expect(r.error?.issues[0]?.message).toMatch(/^Too big:/);
+    expect(formIssues(r.error!, t, { schemaLanguage: true }).fields).toEqual({ '0.id': 'At most 40 characters.' });
   });
 
   it('keeps the API’s English messages (the server answers with the schema’s own words)', () => {
