@@ -36,6 +36,8 @@ describe('planning settings', () => {
     await openSettings(page);
     const url = page.url();
     const before = await turnaround(page).inputValue();
+    // Only this tab is marked as the current page (not "Plan", whose path /plan begins /planning).
+    expect(await page.locator('nav a[aria-current="page"]').allTextContents()).toEqual(['Settings']);
     expect(before).toMatch(/^\d+$/);
 
     // Rendered on the server: the same values with JavaScript off.
