@@ -4,28 +4,19 @@ import Link from 'next/link';
 import { useTranslations } from 'next-intl';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
+import type { z } from 'zod';
+import { signInSchema } from '@/lib/validations/session';
+import { acceptInvitationSchema, confirmResetSchema, requestResetSchema } from '@/lib/validations/users';
 import { Field, Status } from './field';
+import { useFormSubmit } from './use-form-submit';
 
+/** The sign-in and account forms: each posts its body once the route's schema accepts it. */
 function useSubmit() {
-  const tc = useTranslations('common');
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
-  const [busy, setBusy] = useState(false);
-  async function run<T>(path: string, body: unknown, onOk: (d: T) => void) {
-    setBusy(true);
-    setStatus(null);
-    const r = await apiFetch<T>(path, { method: 'POST', body });
-    setBusy(false);
-    if (r.ok) {
-      setFields({});
-      onOk(r.data);
-    } else {
-      setFields(r.error.fields ?? {});
-      setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
-    }
-  }
-  return { fields, status, setStatus, busy, run };
+  const tv = useTranslations('validation');
+  const form = useFormSubmit();
+  const run = <T,>(path: string, schema: z.ZodType, body: unknown, onOk: (d: T) => void) =>
+    form.submit<T>({ schema, body, path, onOk, formats: { token: tv('link') } });
+  return { ...form, run };
 }
 
 export function SignInForm() {
@@ -39,7 +30,7 @@ export function SignInForm() {
       noValidate
       onSubmit={(e) => {
         e.preventDefault();
-        void run('/api/v1/session', { email, password }, () => {
+        void run('/api/v1/session', signInSchema, { email, password }, () => {
           router.push('/');
           router.refresh();
         });
@@ -64,7 +55,7 @@ export function ResetRequestForm() {
       noValidate
       onSubmit={(e) => {
         e.preventDefault();
-        void run('/api/v1/password-resets', { email }, () => setStatus({ msg: t('sent'), tone: 'info' }));
+        void run('/api/v1/password-resets', requestResetSchema, { email }, () => setStatus({ msg: t('sent'), tone: 'info' }));
       }}
     >
       <p className="mb-4 text-sm">{t('intro')}</p>
@@ -92,7 +83,7 @@ export function ResetConfirmForm({ token }: { token: string }) {
       noValidate
       onSubmit={(e) => {
         e.preventDefault();
-        void run('/api/v1/password-resets/confirm', { token, password }, () => setDone(true));
+        void run('/api/v1/password-resets/confirm', confirmResetSchema, { token, password }, () => setDone(true));
       }}
     >
       <Field label={t('newPassword')} type="password" autoComplete="new-password" value={password} onChange={(e) => setPassword(e.target.value)} error={fields.password ?? fields.token} required minLength={10} />
@@ -113,7 +104,7 @@ export function AcceptInviteForm({ token }: { token: string }) {
       noValidate
       onSubmit={(e) => {
         e.preventDefault();
-        void run('/api/v1/invitations/accept', { token, name, password }, () => {
+        void run('/api/v1/invitations/accept', acceptInvitationSchema, { token, name, password }, () => {
           router.push('/');
           router.refresh();
         });

@@ -1,47 +1,50 @@
 'use client';
 
 import { useFormatter, useTranslations } from 'next-intl';
-import { useCallback, useEffect, useState } from 'react';
+import { useCallback, useState } from 'react';
 import { apiFetch } from '@/lib/client/api';
+import { apiKeySchema } from '@/lib/validations/cooks';
 import { Field, Status } from './field';
+import { useFormSubmit } from './use-form-submit';
 
-interface ApiKey { id: string; label: string; prefix: string; createdAt: string; lastUsedAt: string | null; revokedAt: string | null }
+/** A sensor key as GET …/cookers/{cookerId}/api-keys lists it (never the key itself). */
+export interface ApiKey { id: string; label: string; prefix: string; createdAt: string; lastUsedAt: string | null; revokedAt: string | null }
 
 /** Leads make and revoke the keys a cooker's sensor sends readings with; a new key is shown once. */
-export function CookerApiKeys({ kitchenId, cookerId }: { kitchenId: string; cookerId: string }) {
+export function CookerApiKeys({ kitchenId, cookerId, initialKeys }: { kitchenId: string; cookerId: string; initialKeys: ApiKey[] }) {
   const t = useTranslations('cookers.apiKeys');
   const tc = useTranslations('common');
   const format = useFormatter();
   const base = `/api/v1/kitchens/${kitchenId}/cookers/${cookerId}/api-keys`;
-  const [keys, setKeys] = useState<ApiKey[] | null>(null);
+  const [keys, setKeys] = useState<ApiKey[]>(initialKeys);
   const [label, setLabel] = useState('');
-  const [fields, setFields] = useState<Record<string, string>>({});
   const [fresh, setFresh] = useState<string | null>(null);
-  const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
+  const { busy, fields, status, setStatus, submit } = useFormSubmit();
 
-  const load = useCallback(() => apiFetch<{ keys: ApiKey[] }>(base).then((r) => (r.ok ? setKeys(r.data.keys) : setStatus({ msg: r.error.message || tc('offline'), tone: 'error' }))), [base, tc]);
-  useEffect(() => {
-    void Promise.resolve().then(load);
-  }, [load]);
+  /** Reads the list again after a change (the page rendered the first one). */
+  const load = useCallback(async () => {
+    const r = await apiFetch<{ keys: ApiKey[] }>(base);
+    if (r.ok) setKeys(r.data.keys);
+    else setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
+  }, [base, tc, setStatus]);
 
   async function create(e: React.FormEvent) {
     e.preventDefault();
-    const r = await apiFetch<ApiKey & { key: string }>(base, { method: 'POST', body: { label } });
-    if (!r.ok) {
-      setFields(r.error.fields ?? {});
-      return setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
-    }
-    setFields({});
-    setStatus(null);
-    setLabel('');
-    setFresh(r.data.key);
-    await load();
+    await submit<ApiKey & { key: string }>({
+      schema: apiKeySchema,
+      body: { label },
+      path: base,
+      onOk: async (data) => {
+        setLabel('');
+        setFresh(data.key);
+        await load();
+      },
+    });
   }
 
   async function revoke(id: string) {
     if (!window.confirm(t('confirmRevoke'))) return;
-    const r = await apiFetch(`${base}/${id}`, { method: 'DELETE' });
-    if (!r.ok) setStatus({ msg: r.error.message || tc('offline'), tone: 'error' });
+    await submit({ path: `${base}/${id}`, method: 'DELETE' });
     await load();
   }
 
@@ -59,8 +62,8 @@ export function CookerApiKeys({ kitchenId, cookerId }: { kitchenId: string; cook
           </button>
         </div>
       )}
-      {keys && keys.length === 0 && <p>{t('none')}</p>}
-      {keys && keys.length > 0 && (
+      {keys.length === 0 && <p>{t('none')}</p>}
+      {keys.length > 0 && (
         <ul className="flex flex-col gap-2">
           {keys.map((k) => (
             <li key={k.id} className="flex flex-wrap items-center justify-between gap-2 rounded-lg bg-clay-100 px-3 py-2 text-sm">
@@ -81,7 +84,7 @@ export function CookerApiKeys({ kitchenId, cookerId }: { kitchenId: string; cook
         <div className="flex-1">
           <Field label={t('label')} hint={t('labelHint')} value={label} onChange={(e) => setLabel(e.target.value)} error={fields.label} maxLength={100} />
         </div>
-        <button type="submit" className="btn-primary mb-4">{t('create')}</button>
+        <button type="submit" className="btn-primary mb-4" disabled={busy}>{t('create')}</button>
       </form>
       <Status message={status?.msg ?? null} tone={status?.tone} />
     </section>

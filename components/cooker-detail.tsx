@@ -2,25 +2,19 @@
 
 import Link from 'next/link';
 import { useTranslations } from 'next-intl';
-import { useEffect, useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
-import { CookerForm, cookerToForm } from './cooker-form';
+import { CookerForm, cookerToForm, type Medium } from './cooker-form';
 import { PredictionChart } from './prediction-chart';
-import { CookerApiKeys } from './cooker-api-keys';
+import { CookerApiKeys, type ApiKey } from './cooker-api-keys';
 
 type Cooker = Parameters<typeof cookerToForm>[0] & { id: string; name: string; kind: string; mediumName: string; pots: { id: string; name: string }[] };
 
-/** A cooker: its predicted day first (what people come for), then its definition for leads to edit. */
-export function CookerDetail({ kitchenId, cookerId, canEdit }: { kitchenId: string; cookerId: string; canEdit: boolean }) {
+/**
+ * A cooker: its predicted day first (what people come for), then its definition for leads to edit. The page
+ * renders it with the cooker (and, for leads, its media and sensor keys); a save refreshes the page.
+ */
+export function CookerDetail({ kitchenId, cooker: c, canEdit, media, apiKeys }: { kitchenId: string; cooker: Cooker; canEdit: boolean; media: Medium[]; apiKeys: ApiKey[] }) {
   const t = useTranslations('cookers');
-  const tc = useTranslations('common');
-  const [c, setC] = useState<Cooker | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  useEffect(() => {
-    apiFetch<Cooker>(`/api/v1/kitchens/${kitchenId}/cookers/${cookerId}`).then((r) => (r.ok ? setC(r.data) : setError(r.error.status === 0 ? tc('offline') : r.error.message)));
-  }, [kitchenId, cookerId, tc]);
-  if (error) return <p role="alert" className="card text-ember-800">{error}</p>;
-  if (!c) return <p aria-busy="true">{tc('loading')}</p>;
+  const cookerId = c.id;
   return (
     <div className="flex flex-col gap-6">
       <div>
@@ -31,8 +25,8 @@ export function CookerDetail({ kitchenId, cookerId, canEdit }: { kitchenId: stri
         </p>
       </div>
       <PredictionChart kitchenId={kitchenId} cookerId={cookerId} potNames={Object.fromEntries(c.pots.map((p) => [p.id, p.name]))} />
-      {canEdit && <CookerApiKeys kitchenId={kitchenId} cookerId={cookerId} />}
-      {canEdit && <CookerForm kitchenId={kitchenId} cookerId={cookerId} initial={cookerToForm(c)} />}
+      {canEdit && <CookerApiKeys kitchenId={kitchenId} cookerId={cookerId} initialKeys={apiKeys} />}
+      {canEdit && <CookerForm kitchenId={kitchenId} cookerId={cookerId} initial={cookerToForm(c)} media={media} />}
     </div>
   );
 }

@@ -2,11 +2,13 @@
 
 import { useTranslations } from 'next-intl';
 import { useRouter } from 'next/navigation';
-import { useEffect, useId, useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
+import { useId, useState } from 'react';
+import { createCookerSchema, updateCookerSchema } from '@/lib/validations/cookers';
 import { Field, Status } from './field';
+import { useFormSubmit } from './use-form-submit';
 
-interface Medium {
+/** A storage medium as GET /api/v1/kitchens/{kitchenId}/media lists it. */
+export interface Medium {
   id: string;
   name: string;
   kind: string;
@@ -57,6 +59,14 @@ export function cookerToForm(c: Record<string, unknown> & { pots: { id: string; 
 
 const n = (v: string) => (v.trim() === '' ? NaN : Number(v.replace(',', '.')));
 
+/** The label key (cookers.form.*, or cookers.* when prefixed with "cookers.") of each field the schema checks. */
+const COOKER_LABELS: Record<string, string> = {
+  name: 'name', kind: 'cookers.kind', apertureM2: 'cookers.aperture', tracking: 'tracking', tiltDeg: 'tilt', surfaceAzimuthDeg: 'azimuth', collectorModel: 'model',
+  eta0: 'eta0', a1: 'a1', a2: 'a2', uLossWPerK: 'uLoss', mediumId: 'cookers.medium', customMediumId: 'cookers.medium', storeMassKg: 'cookers.storeMass',
+  storeUaWPerK: 'storeUa', storeNodes: 'nodes', maxSafeTempC: 'maxSafe', minUsefulTempC: 'minUseful', pots: 'potsLegend',
+};
+const POT_LABELS: Record<string, string> = { name: 'potName', volumeL: 'volume', massKg: 'potMass', coupling: 'contact', lidAreaM2: 'lidArea', lidUWPerM2K: 'lidU' };
+
 function Select({ label, hint, value, onChange, options, error }: { label: string; hint?: string; value: string; onChange: (v: string) => void; options: [string, string][]; error?: string }) {
   const id = useId();
   return (
@@ -74,28 +84,22 @@ function Select({ label, hint, value, onChange, options, error }: { label: strin
 }
 
 /** Register or edit a cooker: collector, store and pots, each number with its unit and what it means. */
-export function CookerForm({ kitchenId, cookerId, initial }: { kitchenId: string; cookerId?: string; initial?: CookerFormValues }) {
+export function CookerForm({ kitchenId, cookerId, initial, media }: { kitchenId: string; cookerId?: string; initial?: CookerFormValues; media: Medium[] }) {
   const t = useTranslations('cookers');
   const tf = useTranslations('cookers.form');
   const tc = useTranslations('common');
+  const tv = useTranslations('validation');
   const router = useRouter();
   const [v, setV] = useState<CookerFormValues>(initial ?? EMPTY);
-  const [media, setMedia] = useState<Medium[]>([]);
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  useEffect(() => {
-    apiFetch<{ media: Medium[] }>(`/api/v1/kitchens/${kitchenId}/media`).then((r) => r.ok && setMedia(r.data.media));
-  }, [kitchenId]);
+  const { busy, fields, status, submit } = useFormSubmit();
+  const label = (key: string | undefined) => (key === undefined ? null : key.startsWith('cookers.') ? t(key.slice('cookers.'.length) as 'kind') : tf(key as 'name'));
 
   const set = (k: keyof CookerFormValues) => (e: React.ChangeEvent<HTMLInputElement>) => setV({ ...v, [k]: e.target.value });
   const setPot = (i: number, k: keyof PotState, value: string) => setV({ ...v, pots: v.pots.map((p, j) => (j === i ? { ...p, [k]: value } : p)) });
   const medium = media.find((m) => m.id === v.mediumId);
 
-  async function submit(e: React.FormEvent) {
+  async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
-    setBusy(true);
     const body = {
       name: v.name, kind: v.kind, apertureM2: n(v.apertureM2), tracking: v.tracking, tiltDeg: n(v.tiltDeg), surfaceAzimuthDeg: n(v.surfaceAzimuthDeg),
       collectorModel: v.collectorModel, eta0: n(v.eta0), a1: v.collectorModel === 'iso9806' ? n(v.a1) : 0, a2: v.collectorModel === 'iso9806' ? n(v.a2) : 0,
@@ -104,17 +108,21 @@ export function CookerForm({ kitchenId, cookerId, initial }: { kitchenId: string
       storeMassKg: n(v.storeMassKg), storeUaWPerK: n(v.storeUaWPerK), storeNodes: n(v.storeNodes), maxSafeTempC: n(v.maxSafeTempC), minUsefulTempC: n(v.minUsefulTempC),
       pots: v.pots.map((p) => ({ id: p.id, name: p.name, volumeL: n(p.volumeL), massKg: n(p.massKg), cpJPerKgK: 900, coupling: { kind: 'natural-convection', contactAreaM2: n(p.contactAreaM2) }, lidAreaM2: n(p.lidAreaM2), lidUWPerM2K: n(p.lidUWPerM2K) })),
     };
-    const r = await apiFetch<{ id: string }>(cookerId ? `/api/v1/kitchens/${kitchenId}/cookers/${cookerId}` : `/api/v1/kitchens/${kitchenId}/cookers`, { method: cookerId ? 'PATCH' : 'POST', body });
-    setBusy(false);
-    if (r.ok) {
-      setFields({});
-      setStatus({ msg: cookerId ? tf('saved') : tf('created'), tone: 'info' });
-      if (!cookerId) router.push(`/kitchens/${kitchenId}/cookers/${r.data.id}`);
-      else router.refresh();
-    } else {
-      setFields(r.error.fields ?? {});
-      setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
-    }
+    await submit<{ id: string }>({
+      schema: cookerId ? updateCookerSchema : createCookerSchema,
+      body,
+      path: cookerId ? `/api/v1/kitchens/${kitchenId}/cookers/${cookerId}` : `/api/v1/kitchens/${kitchenId}/cookers`,
+      method: cookerId ? 'PATCH' : 'POST',
+      success: cookerId ? tf('saved') : tf('created'),
+      describe: ([k, i, f]) => {
+        if (k === 'pots' && typeof i === 'number') return [tv('pot', { n: i + 1 }), label(typeof f === 'string' ? POT_LABELS[f] : undefined)].filter(Boolean).join(', ');
+        return label(typeof k === 'string' ? COOKER_LABELS[k] : undefined);
+      },
+      onOk: (data) => {
+        if (!cookerId) router.push(`/kitchens/${kitchenId}/cookers/${data.id}`);
+        else router.refresh();
+      },
+    });
   }
 
   const numField = (k: keyof CookerFormValues, label: string, hint?: string) => (
@@ -122,7 +130,7 @@ export function CookerForm({ kitchenId, cookerId, initial }: { kitchenId: string
   );
 
   return (
-    <form onSubmit={submit} noValidate className="flex max-w-3xl flex-col gap-4">
+    <form onSubmit={onSubmit} noValidate className="flex max-w-3xl flex-col gap-4">
       <fieldset className="card">
         <legend className="px-1 text-lg font-bold">{tf('general')}</legend>
         <Field label={tf('name')} hint={tf('nameHint')} value={v.name} onChange={set('name')} error={fields.name} required />

@@ -2,8 +2,6 @@
 
 import Link from 'next/link';
 import { useFormatter, useTranslations } from 'next-intl';
-import { useEffect, useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
 import { usePrefs } from './prefs';
 
 export interface CookerSummary {
@@ -18,20 +16,11 @@ export interface CookerSummary {
   pots: { id: string; name: string; volumeL: number }[];
 }
 
-/** The kitchen's cookers; leads get the link to register one. */
-export function CookerList({ kitchenId, canEdit }: { kitchenId: string; canEdit: boolean }) {
+/** The kitchen's cookers (rendered with the page's data); leads get the link to register one. */
+export function CookerList({ kitchenId, canEdit, cookers }: { kitchenId: string; canEdit: boolean; cookers: CookerSummary[] }) {
   const t = useTranslations('cookers');
-  const tc = useTranslations('common');
   const format = useFormatter();
   const { fmtTemp } = usePrefs();
-  const [cookers, setCookers] = useState<CookerSummary[] | null>(null);
-  const [error, setError] = useState<string | null>(null);
-
-  useEffect(() => {
-    apiFetch<{ cookers: CookerSummary[] }>(`/api/v1/kitchens/${kitchenId}/cookers`).then((r) =>
-      r.ok ? setCookers(r.data.cookers) : setError(r.error.status === 0 ? tc('offline') : r.error.message),
-    );
-  }, [kitchenId, tc]);
 
   return (
     <div className="flex flex-col gap-4">
@@ -43,10 +32,8 @@ export function CookerList({ kitchenId, canEdit }: { kitchenId: string; canEdit:
           </Link>
         )}
       </div>
-      {error && <p role="alert" className="card text-ember-800">{error}</p>}
-      {!cookers && !error && <p aria-busy="true">{tc('loading')}</p>}
-      {cookers && cookers.length === 0 && <p className="card">{t('empty')}</p>}
-      {cookers && cookers.length > 0 && (
+      {cookers.length === 0 && <p className="card">{t('empty')}</p>}
+      {cookers.length > 0 && (
         <ul className="grid gap-4 sm:grid-cols-2">
           {cookers.map((c) => (
             <li key={c.id} className="card flex flex-col gap-1">

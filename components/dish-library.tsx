@@ -1,40 +1,45 @@
 'use client';
 
 import { useFormatter, useTranslations } from 'next-intl';
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useMemo, useRef, useState } from 'react';
 import { apiFetch } from '@/lib/client/api';
+import type { AsJson } from '@/lib/client/as-json';
 import type { describeDish } from '@/lib/dishes';
+import { createDishSchema, updateDishSchema } from '@/lib/validations/dishes';
 import { Field, Status } from './field';
+import { useFormSubmit } from './use-form-submit';
 
 /** A dish as the API returns it (lib/dishes describeDish). */
-export type DishRow = ReturnType<typeof describeDish>;
+export type DishRow = AsJson<ReturnType<typeof describeDish>>;
 
 const METHODS = ['boil', 'simmer', 'steam', 'bake', 'fry'] as const;
 const STOVES = ['lpg', 'three-stone-wood', 'improved-wood', 'charcoal', 'kerosene-pressure', 'electric-hotplate', 'induction'];
 const CSV_COLUMNS = 'name,method,servings_per_batch,food_kg_per_serving,water_kg_per_serving,food_cp_j_per_kg_k,litres_per_serving,min_pot_temp_c,hold_min,safe_core_temp_c,lid_on,backup_stove,notes';
 type SortKey = 'name' | 'method' | 'servingsPerBatch' | 'minPotTempC' | 'holdMin' | 'batchHeatKWh';
 
-/** The organisation's dishes: searchable, sortable table; form; CSV import and export. */
-export function DishLibrary({ kitchenId, canEdit }: { kitchenId: string; canEdit: boolean }) {
+/** The organisation's dishes: searchable, sortable table; form; CSV import and export. The first list comes from the page. */
+export function DishLibrary({ kitchenId, canEdit, initialDishes }: { kitchenId: string; canEdit: boolean; initialDishes: DishRow[] }) {
   const t = useTranslations('dishes');
   const tc = useTranslations('common');
   const format = useFormatter();
-  const [dishes, setDishes] = useState<DishRow[] | null>(null);
+  const [dishes, setDishes] = useState<DishRow[]>(initialDishes);
   const [query, setQuery] = useState('');
   const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: 'name', dir: 1 });
   const [editing, setEditing] = useState<DishRow | 'new' | null>(null);
-  const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
-  const [importErrors, setImportErrors] = useState<[string, string][]>([]);
+  const { fields: importFields, status, setStatus, submit } = useFormSubmit();
   const fileRef = useRef<HTMLInputElement>(null);
 
-  const load = useCallback(() => {
-    apiFetch<{ dishes: DishRow[] }>(`/api/v1/kitchens/${kitchenId}/dishes`).then((r) => (r.ok ? setDishes(r.data.dishes) : setStatus({ msg: r.error.message || tc('offline'), tone: 'error' })));
-  }, [kitchenId, tc]);
-  useEffect(load, [load]);
+  /** Reads the list again after a change (the page rendered the first one). */
+  const load = useCallback(async () => {
+    const r = await apiFetch<{ dishes: DishRow[] }>(`/api/v1/kitchens/${kitchenId}/dishes`);
+    if (r.ok) setDishes(r.data.dishes);
+    else setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
+  }, [kitchenId, tc, setStatus]);
+  const importErrors = Object.entries(importFields);
 
   const rows = useMemo(() => {
     const q = query.trim().toLowerCase();
-    return (dishes ?? [])
+    return dishes
       .filter((d) => !q || d.name.toLowerCase().includes(q) || d.method.includes(q))
       .sort((a, b) => {
         const x = a[sort.key];
@@ -44,18 +49,14 @@ export function DishLibrary({ kitchenId, canEdit }: { kitchenId: string; canEdit
   }, [dishes, query, sort]);
 
   async function onImport(file: File) {
-    setImportErrors([]);
     const text = await file.text();
-    const res = await fetch(`/api/v1/kitchens/${kitchenId}/dishes/import`, { method: 'POST', headers: { 'content-type': 'text/csv' }, body: text }).catch(() => null);
-    if (!res) return setStatus({ msg: tc('offline'), tone: 'error' });
-    const body = (await res.json().catch(() => null)) as { created?: number; updated?: number; error?: { message: string; fields?: Record<string, string> } } | null;
-    if (res.ok && body) {
-      setStatus({ msg: t('imported', { created: body.created ?? 0, updated: body.updated ?? 0 }), tone: 'info' });
-      load();
-    } else {
-      setStatus({ msg: body?.error?.message ?? tc('error'), tone: 'error' });
-      setImportErrors(Object.entries(body?.error?.fields ?? {}));
-    }
+    await submit<{ created?: number; updated?: number }>({
+      send: () => apiFetch(`/api/v1/kitchens/${kitchenId}/dishes/import`, { method: 'POST', raw: { body: text, contentType: 'text/csv' } }),
+      onOk: async (body) => {
+        setStatus({ msg: t('imported', { created: body.created ?? 0, updated: body.updated ?? 0 }), tone: 'info' });
+        await load();
+      },
+    });
     if (fileRef.current) fileRef.current.value = '';
   }
 
@@ -87,7 +88,7 @@ export function DishLibrary({ kitchenId, canEdit }: { kitchenId: string; canEdit
           )}
         </div>
       </div>
-      {canEdit && <p className="text-xs text-clay-700">{t('importHint', { columns: CSV_COLUMNS })}</p>}
+      {canEdit && <p className="break-all text-xs text-clay-700">{t('importHint', { columns: CSV_COLUMNS })}</p>}
       <Status message={status?.msg ?? null} tone={status?.tone} />
       {importErrors.length > 0 && (
         <ul className="card list-disc pl-8 text-sm text-ember-800">
@@ -96,16 +97,27 @@ export function DishLibrary({ kitchenId, canEdit }: { kitchenId: string; canEdit
           ))}
         </ul>
       )}
-      {editing && <DishForm kitchenId={kitchenId} dish={editing === 'new' ? null : editing} onDone={() => { setEditing(null); load(); }} />}
+      {editing && (
+        <DishForm
+          key={editing === 'new' ? 'new' : editing.id}
+          kitchenId={kitchenId}
+          dish={editing === 'new' ? null : editing}
+          onCancel={() => setEditing(null)}
+          onSaved={async () => {
+            setEditing(null);
+            setStatus({ msg: t('saved'), tone: 'info' });
+            await load();
+          }}
+        />
+      )}
       <label className="flex max-w-md flex-col gap-1">
         <span className="label">{t('search')}</span>
         <input type="search" className="field" value={query} onChange={(e) => setQuery(e.target.value)} />
       </label>
-      {!dishes && <p aria-busy="true">{tc('loading')}</p>}
-      {dishes && dishes.length === 0 && <p className="card">{t('empty')}</p>}
-      {dishes && dishes.length > 0 && rows.length === 0 && <p className="card">{t('noMatch')}</p>}
+      {dishes.length === 0 && <p className="card">{t('empty')}</p>}
+      {dishes.length > 0 && rows.length === 0 && <p className="card">{t('noMatch')}</p>}
       {rows.length > 0 && (
-        <div className="card overflow-x-auto p-0">
+        <div className="card relative overflow-x-auto p-0">
           <table className="w-full text-left text-sm">
             <thead className="bg-clay-100">
               <tr>
@@ -146,33 +158,42 @@ export function DishLibrary({ kitchenId, canEdit }: { kitchenId: string; canEdit
   );
 }
 
-function DishForm({ kitchenId, dish, onDone }: { kitchenId: string; dish: DishRow | null; onDone: () => void }) {
+const DISH_LABELS: Record<string, string> = {
+  name: 'name', method: 'method', servingsPerBatch: 'servingsPerBatch', foodKgPerServing: 'foodKg', waterKgPerServing: 'waterKg', foodCpJPerKgK: 'cp',
+  litresPerServing: 'litres', minPotTempC: 'minPot', holdMin: 'hold', safeCoreTempC: 'core', lidOn: 'lid', backupStove: 'backupStove', notes: 'notes',
+};
+
+function DishForm({ kitchenId, dish, onSaved, onCancel }: { kitchenId: string; dish: DishRow | null; onSaved: () => void | Promise<void>; onCancel: () => void }) {
   const t = useTranslations('dishes');
   const tc = useTranslations('common');
   const init = dish ?? { name: '', method: 'boil', servingsPerBatch: 100, foodKgPerServing: 0.1, waterKgPerServing: 0.2, foodCpJPerKgK: 3500, litresPerServing: 0.35, minPotTempC: 90, holdMin: 20, safeCoreTempC: 74, lidOn: true, backupStove: 'lpg', notes: '' };
   const [v, setV] = useState<Record<string, string>>(Object.fromEntries(Object.entries(init).map(([k, x]) => [k, String(x ?? '')])));
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<string | null>(null);
-  const num = (k: string) => Number((v[k] ?? '').replace(',', '.'));
+  const { busy, fields, status, submit } = useFormSubmit();
+  const num = (k: string) => {
+    const s = (v[k] ?? '').trim();
+    return s === '' ? NaN : Number(s.replace(',', '.'));
+  };
   const set = (k: string) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setV({ ...v, [k]: e.target.value });
 
-  async function submit(e: React.FormEvent) {
+  async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
     const body = {
       name: v.name, method: v.method, servingsPerBatch: num('servingsPerBatch'), foodKgPerServing: num('foodKgPerServing'), waterKgPerServing: num('waterKgPerServing'),
       foodCpJPerKgK: num('foodCpJPerKgK'), litresPerServing: num('litresPerServing'), minPotTempC: num('minPotTempC'), holdMin: num('holdMin'), safeCoreTempC: num('safeCoreTempC'),
       lidOn: v.lidOn === 'true', backupStove: v.backupStove, notes: v.notes || null,
     };
-    const r = await apiFetch(dish ? `/api/v1/kitchens/${kitchenId}/dishes/${dish.id}` : `/api/v1/kitchens/${kitchenId}/dishes`, { method: dish ? 'PATCH' : 'POST', body });
-    if (r.ok) onDone();
-    else {
-      setFields(r.error.fields ?? {});
-      setStatus(r.error.status === 0 ? tc('offline') : r.error.message);
-    }
+    await submit({
+      schema: dish ? updateDishSchema : createDishSchema,
+      body,
+      path: dish ? `/api/v1/kitchens/${kitchenId}/dishes/${dish.id}` : `/api/v1/kitchens/${kitchenId}/dishes`,
+      method: dish ? 'PATCH' : 'POST',
+      describe: ([k]) => (typeof k === 'string' && DISH_LABELS[k] ? t(DISH_LABELS[k] as 'name') : null),
+      onOk: onSaved,
+    });
   }
   const f = (k: string, label: string, mode: 'decimal' | 'numeric' = 'decimal') => <Field label={label} inputMode={mode} value={v[k] ?? ''} onChange={set(k)} error={fields[k]} />;
   return (
-    <form onSubmit={submit} noValidate className="card">
+    <form onSubmit={onSubmit} noValidate className="card">
       <h2 className="mb-3 text-lg font-bold">{dish ? dish.name : t('add')}</h2>
       <div className="grid gap-x-4 sm:grid-cols-3">
         <Field label={t('name')} value={v.name ?? ''} onChange={set('name')} error={fields.name} />
@@ -207,10 +228,10 @@ function DishForm({ kitchenId, dish, onDone }: { kitchenId: string; dish: DishRo
       </div>
       <Field label={t('notes')} value={v.notes ?? ''} onChange={set('notes')} error={fields.notes} />
       <div className="flex gap-2">
-        <button className="btn-primary">{t('save')}</button>
-        <button type="button" className="btn-quiet" onClick={onDone}>{tc('cancel')}</button>
+        <button className="btn-primary" disabled={busy}>{busy ? tc('loading') : t('save')}</button>
+        <button type="button" className="btn-quiet" onClick={onCancel}>{tc('cancel')}</button>
       </div>
-      <Status message={status} tone="error" />
+      <Status message={status?.msg ?? null} tone={status?.tone} />
     </form>
   );
 }

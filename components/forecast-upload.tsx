@@ -2,26 +2,25 @@
 
 import { useTranslations } from 'next-intl';
 import { useId, useRef, useState } from 'react';
+import type { ApiResult } from '@/lib/client/api';
+import { forecastUploadFieldsSchema } from '@/lib/validations/forecast';
+import { useFormSubmit } from './use-form-submit';
 
-interface UploadError {
-  status: number;
-  message: string;
-  fields: Record<string, string>;
-}
+type Uploaded = { hours: number; warnings: string[] };
 
 /** Sends the form with XMLHttpRequest so the upload's progress can be shown (fetch cannot report it). */
-function sendWithProgress(url: string, form: FormData, onProgress: (fraction: number) => void): Promise<{ ok: true; data: { hours: number; warnings: string[] } } | { ok: false; error: UploadError }> {
+function sendWithProgress(url: string, form: FormData, onProgress: (fraction: number) => void): Promise<ApiResult<Uploaded>> {
   return new Promise((resolve) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', url);
     xhr.responseType = 'json';
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
     xhr.onload = () => {
-      const body = xhr.response as { error?: { message?: string; fields?: Record<string, string> } } | null;
-      if (xhr.status >= 200 && xhr.status < 300) resolve({ ok: true, data: body as unknown as { hours: number; warnings: string[] } });
-      else resolve({ ok: false, error: { status: xhr.status, message: body?.error?.message ?? xhr.statusText, fields: body?.error?.fields ?? {} } });
+      const body = xhr.response as { error?: { code?: string; message?: string; fields?: Record<string, string> } } | null;
+      if (xhr.status >= 200 && xhr.status < 300) resolve({ ok: true, data: body as unknown as Uploaded });
+      else resolve({ ok: false, error: { status: xhr.status, code: body?.error?.code ?? 'unknown', message: body?.error?.message ?? xhr.statusText, fields: body?.error?.fields ?? {} } });
     };
-    xhr.onerror = () => resolve({ ok: false, error: { status: 0, message: '', fields: {} } });
+    xhr.onerror = () => resolve({ ok: false, error: { status: 0, code: 'offline', message: '' } });
     xhr.send(form);
   });
 }
@@ -29,44 +28,56 @@ function sendWithProgress(url: string, form: FormData, onProgress: (fraction: nu
 /** A kitchen lead's weather upload (CSV or EPW) for a day, with a progress bar and the file's problems listed by line. */
 export function ForecastUpload({ kitchenId, defaultDate, onUploaded }: { kitchenId: string; defaultDate: string; onUploaded: () => void }) {
   const t = useTranslations('forecast.upload');
-  const tc = useTranslations('common');
   const id = useId();
   const fileRef = useRef<HTMLInputElement>(null);
   const [date, setDate] = useState(defaultDate);
   const [mode, setMode] = useState<'as-is' | 'typical-day'>('as-is');
   const [progress, setProgress] = useState<number | null>(null);
-  const [result, setResult] = useState<{ tone: 'info' | 'error'; message: string; fields?: Record<string, string>; warnings?: string[] } | null>(null);
+  const [warnings, setWarnings] = useState<string[]>([]);
+  const { busy, fields, setFields, status, setStatus, submit } = useFormSubmit();
+  // The file's problems by line; the others join the message (the date's stays at its field).
+  const lineFields = Object.entries(fields).filter(([k]) => k.startsWith('line '));
+  const otherFields = Object.entries(fields).filter(([k]) => !k.startsWith('line ') && k !== 'date').map(([, v]) => v);
+  const result = status && { ...status, msg: status.tone === 'error' ? [status.msg, ...otherFields].join(' ') : status.msg };
 
-  async function submit(e: React.FormEvent) {
+  async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
+    setWarnings([]);
     const file = fileRef.current?.files?.[0];
-    if (!file) return setResult({ tone: 'error', message: t('chooseFile') });
-    if (file.size > 5 * 1024 * 1024) return setResult({ tone: 'error', message: t('tooLarge') });
+    const refuse = (msg: string) => {
+      setFields({});
+      setStatus({ msg, tone: 'error' });
+    };
+    if (!file) return refuse(t('chooseFile'));
+    if (file.size > 5 * 1024 * 1024) return refuse(t('tooLarge'));
     const form = new FormData();
     form.set('file', file);
     form.set('date', date);
     form.set('mode', mode);
-    setResult(null);
-    setProgress(0);
-    const r = await sendWithProgress(`/api/v1/kitchens/${kitchenId}/forecast/uploads`, form, setProgress);
-    setProgress(null);
-    if (r.ok) {
-      setResult({ tone: 'info', message: t('done', { hours: r.data.hours }), warnings: r.data.warnings });
-      if (fileRef.current) fileRef.current.value = '';
-      onUploaded();
-    } else {
-      const { fields, ...rest } = r.error;
-      const lines = Object.fromEntries(Object.entries(fields).filter(([k]) => k.startsWith('line ')));
-      const other = Object.entries(fields).filter(([k]) => !k.startsWith('line ')).map(([, v]) => v);
-      setResult({ tone: 'error', message: rest.status === 0 ? tc('offline') : [rest.message, ...other].join(' '), fields: lines });
-    }
+    await submit<Uploaded>({
+      schema: forecastUploadFieldsSchema,
+      body: { date, mode },
+      describe: ([k]) => (k === 'date' ? t('date') : k === 'mode' ? t('mode') : null),
+      send: async () => {
+        setProgress(0);
+        const r = await sendWithProgress(`/api/v1/kitchens/${kitchenId}/forecast/uploads`, form, setProgress);
+        setProgress(null);
+        return r;
+      },
+      onOk: (data) => {
+        setStatus({ msg: t('done', { hours: data.hours }), tone: 'info' });
+        setWarnings(data.warnings);
+        if (fileRef.current) fileRef.current.value = '';
+        onUploaded();
+      },
+    });
   }
 
   return (
     <section aria-labelledby={`${id}-title`} className="card flex flex-col gap-3">
       <h2 id={`${id}-title`} className="text-lg font-bold">{t('title')}</h2>
       <p className="text-sm text-clay-700">{t('intro')}</p>
-      <form onSubmit={submit} noValidate className="grid gap-3 sm:grid-cols-2">
+      <form onSubmit={onSubmit} noValidate className="grid gap-3 sm:grid-cols-2">
         <div className="sm:col-span-2">
           <label htmlFor={`${id}-file`} className="label">{t('file')}</label>
           <input id={`${id}-file`} ref={fileRef} type="file" accept=".csv,.epw,text/csv" className="field" aria-describedby={`${id}-file-hint`} />
@@ -74,7 +85,8 @@ export function ForecastUpload({ kitchenId, defaultDate, onUploaded }: { kitchen
         </div>
         <div>
           <label htmlFor={`${id}-date`} className="label">{t('date')}</label>
-          <input id={`${id}-date`} type="date" className="field" value={date} onChange={(e) => setDate(e.target.value)} required />
+          <input id={`${id}-date`} type="date" className="field" value={date} onChange={(e) => setDate(e.target.value)} required aria-invalid={fields.date ? true : undefined} aria-describedby={fields.date ? `${id}-date-err` : undefined} />
+          {fields.date && <p id={`${id}-date-err`} className="field-error">{fields.date}</p>}
         </div>
         <div>
           <label htmlFor={`${id}-mode`} className="label">{t('mode')}</label>
@@ -84,8 +96,8 @@ export function ForecastUpload({ kitchenId, defaultDate, onUploaded }: { kitchen
           </select>
         </div>
         <div className="flex flex-wrap items-center gap-3 sm:col-span-2">
-          <button className="btn-primary" disabled={progress !== null}>
-            {progress !== null ? t('sending') : t('send')}
+          <button className="btn-primary" disabled={busy}>
+            {busy ? t('sending') : t('send')}
           </button>
           {progress !== null && (
             <label className="flex items-center gap-2 text-sm">
@@ -97,17 +109,17 @@ export function ForecastUpload({ kitchenId, defaultDate, onUploaded }: { kitchen
         </div>
       </form>
       <div role={result?.tone === 'error' ? 'alert' : 'status'} aria-live="polite" className="text-sm">
-        {result && <p className={result.tone === 'error' ? 'font-semibold text-ember-800' : 'text-tide-700'}>{result.message}</p>}
-        {result?.fields && Object.keys(result.fields).length > 0 && (
+        {result && <p className={result.tone === 'error' ? 'font-semibold text-ember-800' : 'text-tide-700'}>{result.msg}</p>}
+        {result?.tone === 'error' && lineFields.length > 0 && (
           <ul className="mt-1 list-disc pl-5 text-ember-800">
-            {Object.entries(result.fields).map(([k, v]) => (
+            {lineFields.map(([k, v]) => (
               <li key={k}>
                 <span className="font-semibold">{k.replace(/^line (\d+)\.(.*)$/, (_, line: string, field: string) => (field.startsWith('(') ? t('lineOnly', { line }) : t('lineField', { line, field })))}</span> {v}
               </li>
             ))}
           </ul>
         )}
-        {result?.warnings?.map((w) => <p key={w} className="text-clay-700">{w}</p>)}
+        {warnings.map((w) => <p key={w} className="text-clay-700">{w}</p>)}
       </div>
       <details className="text-sm">
         <summary className="cursor-pointer font-semibold">{t('formatTitle')}</summary>

@@ -2,7 +2,7 @@
 
 import { Chart as ChartJS, CategoryScale, Filler, Legend, LinearScale, LineElement, PointElement, Tooltip } from 'chart.js';
 import { useFormatter, useTranslations } from 'next-intl';
-import { useCallback, useEffect, useMemo, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import { Line } from 'react-chartjs-2';
 import { apiFetch } from '@/lib/client/api';
 import { ForecastUpload } from './forecast-upload';
@@ -43,34 +43,24 @@ function addDays(date: string, n: number): string {
  * The kitchen's weather for today and the next two days: irradiance and air temperature as a chart, each day's
  * source and age, the fallback in use, the last failed fetch, an hourly table, and (for leads) the upload form.
  */
-export function ForecastView({ kitchenId, kitchenName, canUpload }: { kitchenId: string; kitchenName: string; canUpload: boolean }) {
+export function ForecastView({ kitchenId, kitchenName, canUpload, initialDays }: { kitchenId: string; kitchenName: string; canUpload: boolean; initialDays: DayForecast[] }) {
   const t = useTranslations('forecast');
   const tc = useTranslations('common');
   const format = useFormatter();
   const { toUnit, fmtTemp, unitLabel, locale } = usePrefs();
-  const [days, setDays] = useState<DayForecast[] | null>(null);
+  const [days, setDays] = useState<DayForecast[] | null>(initialDays);
   const [error, setError] = useState<string | null>(null);
-  const [version, setVersion] = useState(0);
 
-  useEffect(() => {
-    let live = true;
-    (async () => {
-      const first = await apiFetch<DayForecast>(`/api/v1/kitchens/${kitchenId}/forecast`);
-      if (!live) return;
-      if (!first.ok) return setError(first.error.status === 0 ? tc('offline') : first.error.message);
-      const rest = await Promise.all([1, 2].map((n) => apiFetch<DayForecast>(`/api/v1/kitchens/${kitchenId}/forecast?date=${addDays(first.data.date, n)}`)));
-      if (!live) return;
-      const bad = rest.find((r) => !r.ok);
-      if (bad && !bad.ok) return setError(bad.error.status === 0 ? tc('offline') : bad.error.message);
-      setError(null);
-      setDays([first.data, ...rest.map((r) => (r.ok ? r.data : first.data))]);
-    })();
-    return () => {
-      live = false;
-    };
-  }, [kitchenId, tc, version]);
-
-  const reload = useCallback(() => setVersion((v) => v + 1), []);
+  /** Reads the three days again after an upload (the page rendered the first ones). */
+  const reload = useCallback(async () => {
+    const first = await apiFetch<DayForecast>(`/api/v1/kitchens/${kitchenId}/forecast`);
+    if (!first.ok) return setError(first.error.status === 0 ? tc('offline') : first.error.message);
+    const rest = await Promise.all([1, 2].map((n) => apiFetch<DayForecast>(`/api/v1/kitchens/${kitchenId}/forecast?date=${addDays(first.data.date, n)}`)));
+    const bad = rest.find((r) => !r.ok);
+    if (bad && !bad.ok) return setError(bad.error.status === 0 ? tc('offline') : bad.error.message);
+    setError(null);
+    setDays([first.data, ...rest.map((r) => (r.ok ? r.data : first.data))]);
+  }, [kitchenId, tc]);
   const tz = days?.[0]?.timeZone;
   const dayLabel = (date: string) => format.dateTime(new Date(`${date}T12:00:00Z`), { weekday: 'long', day: 'numeric', month: 'long', timeZone: 'UTC' });
   const hourLabel = useCallback(
@@ -206,7 +196,7 @@ export function ForecastView({ kitchenId, kitchenName, canUpload }: { kitchenId:
               </details>
             </section>
           )}
-          {canUpload && <ForecastUpload kitchenId={kitchenId} defaultDate={addDays(days[0]!.date, 1)} onUploaded={reload} />}
+          {canUpload && <ForecastUpload kitchenId={kitchenId} defaultDate={addDays(days[0]!.date, 1)} onUploaded={() => void reload()} />}
         </>
       )}
     </div>

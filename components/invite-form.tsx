@@ -1,49 +1,36 @@
 'use client';
 
 import { useTranslations } from 'next-intl';
-import { useEffect, useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
+import { useState } from 'react';
+import { createInvitationSchema } from '@/lib/validations/users';
 import { Field, Status } from './field';
 import type { KitchenSummary } from './kitchen-list';
+import { useFormSubmit } from './use-form-submit';
 
-/** Invite someone by e-mail with a role and a kitchen; the roles offered follow the inviter's own. */
-export function InviteForm({ canInviteCoordinator }: { canInviteCoordinator: boolean }) {
+/** Invite someone by e-mail with a role and a kitchen (one the inviter manages); the roles offered follow the inviter's own. */
+export function InviteForm({ canInviteCoordinator, kitchens }: { canInviteCoordinator: boolean; kitchens: KitchenSummary[] }) {
   const t = useTranslations('people');
   const tc = useTranslations('common');
-  const [kitchens, setKitchens] = useState<KitchenSummary[]>([]);
   const [email, setEmail] = useState('');
   const [role, setRole] = useState('cook');
-  const [kitchenId, setKitchenId] = useState('');
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const [kitchenId, setKitchenId] = useState(kitchens[0]?.id ?? '');
+  const { busy, fields, status, submit } = useFormSubmit();
 
-  useEffect(() => {
-    apiFetch<{ kitchens: KitchenSummary[] }>('/api/v1/kitchens').then((r) => {
-      if (!r.ok) return;
-      const manageable = r.data.kitchens.filter((k) => k.role === 'coordinator' || k.role === 'lead');
-      setKitchens(manageable);
-      if (manageable[0]) setKitchenId(manageable[0].id);
-    });
-  }, []);
-
-  async function submit(e: React.FormEvent) {
+  async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
-    setBusy(true);
-    const r = await apiFetch('/api/v1/invitations', { method: 'POST', body: { email, role, kitchenId: role === 'coordinator' ? null : kitchenId || null } });
-    setBusy(false);
-    if (r.ok) {
-      setFields({});
-      setStatus({ msg: t('sent', { email }), tone: 'info' });
-      setEmail('');
-    } else {
-      setFields(r.error.fields ?? {});
-      setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
-    }
+    const sent = email;
+    await submit({
+      schema: createInvitationSchema,
+      body: { email, role, kitchenId: role === 'coordinator' ? null : kitchenId || null },
+      path: '/api/v1/invitations',
+      success: t('sent', { email: sent.trim() }),
+      describe: ([k]) => (k === 'email' ? t('email') : k === 'role' ? t('role') : k === 'kitchenId' ? t('kitchen') : null),
+      onOk: () => setEmail(''),
+    });
   }
 
   return (
-    <form onSubmit={submit} noValidate className="card max-w-xl">
+    <form onSubmit={onSubmit} noValidate className="card max-w-xl">
       <h2 className="mb-3 text-lg font-bold">{t('invite')}</h2>
       <Field label={t('email')} type="email" autoComplete="off" value={email} onChange={(e) => setEmail(e.target.value)} error={fields.email} required />
       <div className="mb-4">

@@ -2,9 +2,10 @@
 
 import { useTranslations } from 'next-intl';
 import { useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
+import { createKitchenSchema, updateKitchenSchema } from '@/lib/validations/kitchens';
 import { Field, Status } from './field';
 import type { KitchenSummary } from './kitchen-list';
+import { useFormSubmit } from './use-form-submit';
 
 type Values = { name: string; latitude: string; longitude: string; altitudeM: string; timeZone: string; locale: 'en' | 'fr'; clearness: string[] };
 
@@ -12,6 +13,7 @@ type Values = { name: string; latitude: string; longitude: string; altitudeM: st
 export function KitchenForm({ kitchen, onSaved }: { kitchen?: KitchenSummary & { locale?: string }; onSaved?: (k: KitchenSummary) => void }) {
   const t = useTranslations('kitchen');
   const tc = useTranslations('common');
+  const tv = useTranslations('validation');
   const [v, setV] = useState<Values>({
     name: kitchen?.name ?? '',
     latitude: kitchen ? String(kitchen.latitude) : '',
@@ -22,9 +24,7 @@ export function KitchenForm({ kitchen, onSaved }: { kitchen?: KitchenSummary & {
     clearness: (kitchen?.clearness?.values ?? []).map(String),
   });
   const [clearnessDefault, setClearnessDefault] = useState(kitchen?.clearness?.isDefault ?? true);
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, fields, status, submit } = useFormSubmit();
   const set = (k: Exclude<keyof Values, 'clearness'>) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setV({ ...v, [k]: e.target.value });
   const setMonth = (m: number) => (e: React.ChangeEvent<HTMLInputElement>) => {
     setClearnessDefault(false);
@@ -32,36 +32,38 @@ export function KitchenForm({ kitchen, onSaved }: { kitchen?: KitchenSummary & {
   };
   const months = t.raw('clearness.months') as string[];
 
-  async function submit(e: React.FormEvent) {
+  async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
-    setBusy(true);
     const { clearness, ...rest } = v;
+    const num = (s: string) => (s.trim() === '' ? NaN : Number(s.replace(',', '.')));
     const body = {
       ...rest,
-      latitude: Number(v.latitude),
-      longitude: Number(v.longitude),
-      altitudeM: Number(v.altitudeM),
+      latitude: num(v.latitude),
+      longitude: num(v.longitude),
+      altitudeM: num(v.altitudeM),
       // Only an edit sends the monthly values; unchanged defaults stay defaults (null).
-      ...(kitchen && clearness.length === 12 ? { clearness: clearnessDefault ? null : clearness.map(Number) } : {}),
+      ...(kitchen && clearness.length === 12 ? { clearness: clearnessDefault ? null : clearness.map(num) } : {}),
     };
-    const r = await apiFetch<KitchenSummary>(kitchen ? `/api/v1/kitchens/${kitchen.id}` : '/api/v1/kitchens', { method: kitchen ? 'PATCH' : 'POST', body });
-    setBusy(false);
-    if (r.ok) {
-      setFields({});
-      setStatus({ msg: kitchen ? tc('saved') : t('created'), tone: 'info' });
-      onSaved?.(r.data);
-      if (r.data.clearness) {
-        setV((cur) => ({ ...cur, clearness: r.data.clearness!.values.map(String) }));
-        setClearnessDefault(r.data.clearness.isDefault);
-      }
-    } else {
-      setFields(r.error.fields ?? {});
-      setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
-    }
+    const labels: Record<string, string> = { name: t('name'), latitude: t('latitude'), longitude: t('longitude'), altitudeM: t('altitude'), timeZone: t('timeZone'), locale: t('locale'), clearness: t('clearness.title') };
+    await submit<KitchenSummary>({
+      schema: kitchen ? updateKitchenSchema : createKitchenSchema,
+      body,
+      path: kitchen ? `/api/v1/kitchens/${kitchen.id}` : '/api/v1/kitchens',
+      method: kitchen ? 'PATCH' : 'POST',
+      success: kitchen ? tc('saved') : t('created'),
+      describe: ([k, m]) => (k === 'clearness' && typeof m === 'number' ? `${labels.clearness}, ${months[m] ?? tv('month', { n: m + 1 })}` : typeof k === 'string' ? (labels[k] ?? null) : null),
+      onOk: (data) => {
+        onSaved?.(data);
+        if (data.clearness) {
+          setV((cur) => ({ ...cur, clearness: data.clearness!.values.map(String) }));
+          setClearnessDefault(data.clearness.isDefault);
+        }
+      },
+    });
   }
 
   return (
-    <form onSubmit={submit} noValidate className="card max-w-xl">
+    <form onSubmit={onSubmit} noValidate className="card max-w-xl">
       <h2 className="mb-3 text-lg font-bold">{kitchen ? t('edit') : t('create')}</h2>
       <Field label={t('name')} value={v.name} onChange={set('name')} error={fields.name} required />
       <div className="grid gap-x-4 sm:grid-cols-3">

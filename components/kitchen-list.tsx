@@ -3,7 +3,6 @@
 import Link from 'next/link';
 import { useFormatter, useTranslations } from 'next-intl';
 import { useEffect, useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
 
 export interface KitchenSummary {
   id: string;
@@ -18,26 +17,18 @@ export interface KitchenSummary {
   role?: string;
 }
 
-/** Fetches the caller's kitchens from the API and shows them as cards, with an empty state. */
-export function KitchenList() {
+/** The caller's kitchens as cards (the page's data, as GET /api/v1/kitchens answers), with an empty state; local clocks tick each minute. */
+export function KitchenList({ kitchens }: { kitchens: KitchenSummary[] }) {
   const t = useTranslations('home');
   const tc = useTranslations('common');
   const format = useFormatter();
-  const [kitchens, setKitchens] = useState<KitchenSummary[] | null>(null);
-  const [error, setError] = useState<string | null>(null);
   const [now, setNow] = useState(() => new Date());
 
   useEffect(() => {
-    apiFetch<{ kitchens: KitchenSummary[] }>('/api/v1/kitchens').then((r) => {
-      if (r.ok) setKitchens(r.data.kitchens);
-      else setError(r.error.status === 0 ? tc('offline') : r.error.message);
-    });
     const timer = setInterval(() => setNow(new Date()), 60_000);
     return () => clearInterval(timer);
-  }, [tc]);
+  }, []);
 
-  if (error) return <p role="alert" className="text-ember-800">{error}</p>;
-  if (!kitchens) return <p aria-busy="true">{tc('loading')}</p>;
   if (!kitchens.length) return <p className="card">{t('empty')}</p>;
   return (
     <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">

@@ -12,7 +12,8 @@ export function KitchenTabs({ kitchenId, kitchenName, tabs }: { kitchenId: strin
   const pathname = usePathname();
   const base = `/kitchens/${kitchenId}`;
   const href = (tab: KitchenTab) => (tab === 'kitchen' ? base : tab === 'settings' ? `${base}/planning` : `${base}/${tab}`);
-  const active = (tab: KitchenTab) => (tab === 'kitchen' ? pathname === base : pathname.startsWith(href(tab)));
+  // A whole path segment: /planning is the settings tab, not the plan's.
+  const active = (tab: KitchenTab) => (tab === 'kitchen' ? pathname === base : pathname === href(tab) || pathname.startsWith(`${href(tab)}/`));
   const label = (tab: KitchenTab) => (tab === 'settings' ? t('settings') : t(tab));
   return (
     <nav aria-label={kitchenName} className="-mx-4 mb-6 overflow-x-auto border-b border-clay-200 px-4">

@@ -1,56 +1,73 @@
 'use client';
 
 import { useTranslations } from 'next-intl';
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { apiFetch } from '@/lib/client/api';
+import { planningSettingsSchema } from '@/lib/validations/plans';
 import { Field, Status } from './field';
+import { useFormSubmit } from './use-form-submit';
 
 interface Stove { id: string; name: string; fuelId: string; efficiency: number; tier: number }
 interface Planning { shiftStart: string; shiftEnd: string; turnaroundMin: number; currency: string; fuels: { stoveId: string; efficiency?: number; price?: number }[] }
+/** The answer of GET /api/v1/kitchens/{kitchenId}/planning-settings. */
+export interface PlanningSettingsData { planning: Planning; stoves: Stove[] }
+type Values = { shiftStart: string; shiftEnd: string; turnaroundMin: string; currency: string; fuels: { stoveId: string; efficiency: string; price: string }[] };
+
+const toValues = (p: Planning): Values => ({
+  shiftStart: p.shiftStart,
+  shiftEnd: p.shiftEnd,
+  turnaroundMin: String(p.turnaroundMin),
+  currency: p.currency,
+  fuels: p.fuels.map((f) => ({ stoveId: f.stoveId, efficiency: f.efficiency?.toString() ?? '', price: f.price?.toString() ?? '' })),
+});
+const num = (s: string) => (s.trim() === '' ? NaN : Number(s.replace(',', '.')));
 
 /** Shift hours, turnaround, currency, and the backup stoves on hand with measured efficiency and local price. */
-export function PlanningSettings({ kitchenId }: { kitchenId: string }) {
+export function PlanningSettings({ kitchenId, initial }: { kitchenId: string; initial: PlanningSettingsData }) {
   const t = useTranslations('planning');
   const tc = useTranslations('common');
-  const [stoves, setStoves] = useState<Stove[]>([]);
-  const [v, setV] = useState<{ shiftStart: string; shiftEnd: string; turnaroundMin: string; currency: string; fuels: { stoveId: string; efficiency: string; price: string }[] } | null>(null);
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
+  const tv = useTranslations('validation');
+  const [stoves, setStoves] = useState<Stove[]>(initial.stoves);
+  const [v, setV] = useState<Values>(() => toValues(initial.planning));
+  const { busy, fields, status, submit } = useFormSubmit();
+  const path = `/api/v1/kitchens/${kitchenId}/planning-settings`;
 
-  useEffect(() => {
-    apiFetch<{ planning: Planning; stoves: Stove[] }>(`/api/v1/kitchens/${kitchenId}/planning-settings`).then((r) => {
-      if (!r.ok) return setStatus({ msg: r.error.message, tone: 'error' });
-      setStoves(r.data.stoves);
-      const p = r.data.planning;
-      setV({ shiftStart: p.shiftStart, shiftEnd: p.shiftEnd, turnaroundMin: String(p.turnaroundMin), currency: p.currency, fuels: p.fuels.map((f) => ({ stoveId: f.stoveId, efficiency: f.efficiency?.toString() ?? '', price: f.price?.toString() ?? '' })) });
-    });
-  }, [kitchenId]);
-
-  if (!v) return <p aria-busy="true">{tc('loading')}</p>;
-
-  async function submit(e: React.FormEvent) {
+  async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
-    if (!v) return;
     const body = {
       shiftStart: v.shiftStart,
       shiftEnd: v.shiftEnd,
-      turnaroundMin: Number(v.turnaroundMin),
-      currency: v.currency.toUpperCase(),
-      fuels: v.fuels.map((f) => ({ stoveId: f.stoveId, ...(f.efficiency ? { efficiency: Number(f.efficiency) } : {}), ...(f.price ? { price: Number(f.price) } : {}) })),
+      turnaroundMin: num(v.turnaroundMin),
+      currency: v.currency.trim().toUpperCase(),
+      fuels: v.fuels.map((f) => ({ stoveId: f.stoveId, ...(f.efficiency.trim() ? { efficiency: num(f.efficiency) } : {}), ...(f.price.trim() ? { price: num(f.price) } : {}) })),
     };
-    const r = await apiFetch(`/api/v1/kitchens/${kitchenId}/planning-settings`, { method: 'PUT', body });
-    if (r.ok) {
-      setFields({});
-      setStatus({ msg: t('saved'), tone: 'info' });
-    } else {
-      setFields(r.error.fields ?? {});
-      setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
-    }
+    await submit<PlanningSettingsData>({
+      schema: planningSettingsSchema,
+      body,
+      path,
+      method: 'PUT',
+      success: t('saved'),
+      formats: { shiftStart: tv('time'), shiftEnd: tv('time'), currency: tv('currency') },
+      describe: (p) => {
+        const [k, i, f] = p;
+        if (k === 'fuels' && typeof i === 'number') return `${tv('stove', { n: i + 1 })}, ${f === 'price' ? t('priceShort') : f === 'efficiency' ? t('efficiencyShort') : t('stove')}`;
+        if (k === 'fuels') return t('stoves');
+        return k === 'turnaroundMin' ? t('turnaround') : typeof k === 'string' && ['shiftStart', 'shiftEnd', 'currency'].includes(k) ? t(k as 'shiftStart') : null;
+      },
+      // The saved settings, read back (another lead may have changed the list of stoves).
+      onOk: async () => {
+        const r = await apiFetch<PlanningSettingsData>(path);
+        if (r.ok) {
+          setStoves(r.data.stoves);
+          setV(toValues(r.data.planning));
+        }
+      },
+    });
   }
   const setF = (i: number, k: 'stoveId' | 'efficiency' | 'price', value: string) => setV({ ...v, fuels: v.fuels.map((f, j) => (j === i ? { ...f, [k]: value } : f)) });
 
   return (
-    <form onSubmit={submit} noValidate className="card flex max-w-3xl flex-col gap-2">
+    <form onSubmit={onSubmit} noValidate className="card flex max-w-3xl flex-col gap-2">
       <h1 className="text-2xl font-bold">{t('title')}</h1>
       <div className="grid gap-x-4 sm:grid-cols-2">
         <Field label={t('shiftStart')} type="time" value={v.shiftStart} onChange={(e) => setV({ ...v, shiftStart: e.target.value })} error={fields.shiftStart} />
@@ -79,7 +96,7 @@ export function PlanningSettings({ kitchenId }: { kitchenId: string }) {
         {fields.fuels && <p className="field-error">{fields.fuels}</p>}
         <button type="button" className="btn-quiet mt-2" onClick={() => setV({ ...v, fuels: [...v.fuels, { stoveId: 'charcoal', efficiency: '', price: '' }] })}>{t('addStove')}</button>
       </fieldset>
-      <button className="btn-primary w-fit">{t('save')}</button>
+      <button className="btn-primary w-fit" disabled={busy}>{busy ? tc('loading') : t('save')}</button>
       <Status message={status?.msg ?? null} tone={status?.tone} />
     </form>
   );

@@ -3,9 +3,10 @@
 import { useTranslations } from 'next-intl';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { apiFetch } from '@/lib/client/api';
 import { formatTemperature } from '@/lib/units';
+import { updateMeSchema } from '@/lib/validations/users';
 import { Field, Status } from './field';
+import { useFormSubmit } from './use-form-submit';
 
 /** The user's name, language and temperature unit. */
 export function SettingsForm({ initial }: { initial: { name: string; locale: 'en' | 'fr'; temperatureUnit: 'C' | 'F' } }) {
@@ -13,24 +14,23 @@ export function SettingsForm({ initial }: { initial: { name: string; locale: 'en
   const tc = useTranslations('common');
   const router = useRouter();
   const [v, setV] = useState(initial);
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState<{ msg: string; tone: 'info' | 'error' } | null>(null);
+  const { busy, fields, status, submit } = useFormSubmit();
 
-  async function submit(e: React.FormEvent) {
+  async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
-    const r = await apiFetch('/api/v1/me', { method: 'PATCH', body: v });
-    if (r.ok) {
-      setFields({});
-      setStatus({ msg: tc('saved'), tone: 'info' });
-      router.refresh();
-    } else {
-      setFields(r.error.fields ?? {});
-      setStatus({ msg: r.error.status === 0 ? tc('offline') : r.error.message, tone: 'error' });
-    }
+    await submit({
+      schema: updateMeSchema,
+      body: v,
+      path: '/api/v1/me',
+      method: 'PATCH',
+      success: tc('saved'),
+      describe: ([k]) => (k === 'name' ? t('name') : k === 'locale' ? tc('language') : k === 'temperatureUnit' ? t('temperatureUnit') : null),
+      onOk: () => router.refresh(),
+    });
   }
 
   return (
-    <form onSubmit={submit} noValidate className="card max-w-xl">
+    <form onSubmit={onSubmit} noValidate className="card max-w-xl">
       <Field label={t('name')} value={v.name} onChange={(e) => setV({ ...v, name: e.target.value })} error={fields.name} />
       <div className="mb-4">
         <label htmlFor="settings-locale" className="label">{tc('language')}</label>
@@ -49,7 +49,7 @@ export function SettingsForm({ initial }: { initial: { name: string; locale: 'en
         ))}
         <p className="text-sm text-clay-700">{t('sample', { value: formatTemperature(180, v.temperatureUnit, v.locale) })}</p>
       </fieldset>
-      <button className="btn-primary">{tc('save')}</button>
+      <button className="btn-primary" disabled={busy}>{busy ? tc('loading') : tc('save')}</button>
       <Status message={status?.msg ?? null} tone={status?.tone} />
     </form>
   );

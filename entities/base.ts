@@ -18,9 +18,8 @@ export const baseProperties = {
   updatedAt: { type: 'Date', columnType: 'timestamptz', onCreate: () => new Date(), onUpdate: () => new Date() },
 } satisfies EntitySchemaMetadata<Base>['properties'];
 
-export const ROLES = ['coordinator', 'lead', 'cook'] as const;
+import { LOCALES, ROLES, TEMPERATURE_UNITS } from './constants';
+export { LOCALES, ROLES, TEMPERATURE_UNITS };
 export type Role = (typeof ROLES)[number];
-export const LOCALES = ['en', 'fr'] as const;
 export type Locale = (typeof LOCALES)[number];
-export const TEMPERATURE_UNITS = ['C', 'F'] as const;
 export type TemperatureUnit = (typeof TEMPERATURE_UNITS)[number];

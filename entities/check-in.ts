@@ -3,7 +3,8 @@ import { baseProperties, type Base } from './base';
 import type { Kitchen } from './kitchen';
 import type { User } from './user';
 
-export const CHECK_IN_KINDS = ['started', 'done', 'skipped'] as const;
+import { CHECK_IN_KINDS } from './constants';
+export { CHECK_IN_KINDS };
 export type CheckInKind = (typeof CHECK_IN_KINDS)[number];
 
 /**

@@ -3,9 +3,9 @@ import { baseProperties, type Base } from './base';
 import type { Kitchen } from './kitchen';
 import type { StorageMedium } from './storage-medium';
 
-export const COOKER_KINDS = ['dish', 'trough', 'box', 'evacuated-tube'] as const;
+import { COOKER_KINDS, TRACKING_MODES } from './constants';
+export { COOKER_KINDS, TRACKING_MODES };
 export type CookerKind = (typeof COOKER_KINDS)[number];
-export const TRACKING_MODES = ['fixed', 'one-axis', 'two-axis'] as const;
 export type TrackingMode = (typeof TRACKING_MODES)[number];
 
 export interface CookerPot {

@@ -2,7 +2,8 @@ import { EntitySchema } from '@mikro-orm/core';
 import { baseProperties, type Base } from './base';
 import type { Organisation } from './organisation';
 
-export const COOK_METHODS = ['boil', 'simmer', 'steam', 'bake', 'fry'] as const;
+import { COOK_METHODS } from './constants';
+export { COOK_METHODS };
 export type CookMethod = (typeof COOK_METHODS)[number];
 
 /** A dish of the organisation's library, shared by its kitchens. */

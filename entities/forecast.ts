@@ -6,7 +6,8 @@ export const FORECAST_SOURCES = ['service', 'upload'] as const;
 export type ForecastSourceKind = (typeof FORECAST_SOURCES)[number];
 export const FORECAST_STATUSES = ['ok', 'failed'] as const;
 export type ForecastStatus = (typeof FORECAST_STATUSES)[number];
-export const UPLOAD_MODES = ['as-is', 'typical-day'] as const;
+import { UPLOAD_MODES } from './constants';
+export { UPLOAD_MODES };
 export type UploadMode = (typeof UPLOAD_MODES)[number];
 
 /**

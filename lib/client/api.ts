@@ -9,14 +9,17 @@ export interface ApiError {
 
 export type ApiResult<T> = { ok: true; data: T } | { ok: false; error: ApiError };
 
-/** Calls a route handler and returns data or the one error shape; a network failure becomes status 0. */
-export async function apiFetch<T>(path: string, init?: { method?: string; body?: unknown }): Promise<ApiResult<T>> {
+/**
+ * Calls a route handler and returns data or the one error shape; a network failure becomes status 0. The body
+ * goes as JSON, or `raw` as it is with its content type (e.g. a CSV import).
+ */
+export async function apiFetch<T>(path: string, init?: { method?: string; body?: unknown; raw?: { body: string; contentType: string } }): Promise<ApiResult<T>> {
   let res: Response;
   try {
     res = await fetch(path, {
       method: init?.method ?? 'GET',
-      headers: init?.body !== undefined ? { 'content-type': 'application/json' } : undefined,
-      body: init?.body !== undefined ? JSON.stringify(init.body) : undefined,
+      headers: init?.raw ? { 'content-type': init.raw.contentType } : init?.body !== undefined ? { 'content-type': 'application/json' } : undefined,
+      body: init?.raw ? init.raw.body : init?.body !== undefined ? JSON.stringify(init.body) : undefined,
       credentials: 'same-origin',
     });
   } catch {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { LOCALES, ROLES, TEMPERATURE_UNITS } from '@/entities/base';
+import { LOCALES, ROLES, TEMPERATURE_UNITS } from '@/entities/constants';
 
 export const uuid = z.uuid({ message: 'Must be an id (UUID).' });
 export const email = z
@@ -13,7 +13,7 @@ export const password = z
   .min(10, 'Use at least 10 characters.')
   .max(200, 'Use at most 200 characters.')
   // bcrypt reads only the first 72 bytes; a longer password would let its tail be anything.
-  .refine((p) => Buffer.byteLength(p, 'utf8') <= 72, 'Use at most 72 bytes (about 72 plain letters, fewer with accents or other scripts).');
+  .refine((p) => new TextEncoder().encode(p).length <= 72, { message: 'Use at most 72 bytes (about 72 plain letters, fewer with accents or other scripts).', params: { i18n: 'passwordBytes' } });
 /**
  * Control characters (PostgreSQL refuses NUL in text, and none belongs in a name) and unpaired
  * UTF-16 surrogates (not encodable in UTF-8: the database would silently store U+FFFD instead).
@@ -28,7 +28,7 @@ export const displayName = () =>
     .trim()
     .min(1, 'Enter a name.')
     .max(200, 'At most 200 characters.')
-    .refine((s) => !CONTROL_OR_LONE_SURROGATE.test(s), 'Remove the control characters (e.g. tabs or line breaks) and broken characters from the name.');
+    .refine((s) => !CONTROL_OR_LONE_SURROGATE.test(s), { message: 'Remove the control characters (e.g. tabs or line breaks) and broken characters from the name.', params: { i18n: 'nameCharacters' } });
 export const personName = displayName();
 export const role = z.enum(ROLES, { message: `Role must be one of: ${ROLES.join(', ')}.` });
 export const locale = z.enum(LOCALES, { message: `Language must be one of: ${LOCALES.join(', ')}.` });

@@ -1,6 +1,6 @@
 import { localDate } from './menus';
 import { z } from 'zod';
-import { COOKER_KINDS, TRACKING_MODES } from '@/entities/cooker';
+import { COOKER_KINDS, TRACKING_MODES } from '@/entities/constants';
 import { hasMedium, listMediumIds } from '@/lib/materials';
 
 const num = (what: string, min: number, max: number, unit: string) =>
@@ -41,6 +41,7 @@ const cookerFieldChecks = z.strictObject({
   uLossWPerK: num('Collector loss', 0, 500, 'W/K'),
   mediumId: z.string({ message: 'Choose the store medium.' }).refine((id) => id === 'custom' || hasMedium(id), {
     message: `Unknown store medium; choose one of: ${listMediumIds().join(', ')}, or custom.`,
+    params: { i18n: 'medium' },
   }),
   customMediumId: z.uuid({ message: 'Choose a custom medium.' }).nullable().optional(),
   storeMassKg: num('Store mass', 1, 50000, 'kg'),
@@ -61,10 +62,10 @@ export const cookerBaseSchema = cookerFieldChecks.extend({
 
 function refineCooker(v: Partial<z.infer<typeof cookerBaseSchema>>, ctx: z.RefinementCtx) {
   if (v.maxSafeTempC !== undefined && v.minUsefulTempC !== undefined && v.minUsefulTempC >= v.maxSafeTempC - 5) {
-    ctx.addIssue({ code: 'custom', path: ['minUsefulTempC'], message: 'The lowest useful temperature must be at least 5 °C below the highest safe one.' });
+    ctx.addIssue({ code: 'custom', path: ['minUsefulTempC'], message: 'The lowest useful temperature must be at least 5 °C below the highest safe one.', params: { i18n: 'usefulBelowSafe' } });
   }
   if (v.mediumId === 'custom' && !v.customMediumId) {
-    ctx.addIssue({ code: 'custom', path: ['customMediumId'], message: 'Choose the custom medium, or a built-in one.' });
+    ctx.addIssue({ code: 'custom', path: ['customMediumId'], message: 'Choose the custom medium, or a built-in one.', params: { i18n: 'customMedium' } });
   }
   if (v.collectorModel === 'lumped' && v.uLossWPerK === 0 && v.a1 === 0) {
     // Allowed (an ideal collector) but almost never real; the UI warns, the API accepts.
@@ -72,7 +73,7 @@ function refineCooker(v: Partial<z.infer<typeof cookerBaseSchema>>, ctx: z.Refin
   const ids = new Set<string>();
   v.pots?.forEach((p, i) => {
     const id = p.id ?? `pot-${i + 1}`;
-    if (ids.has(id)) ctx.addIssue({ code: 'custom', path: ['pots', i, 'id'], message: 'Each pot needs its own id.' });
+    if (ids.has(id)) ctx.addIssue({ code: 'custom', path: ['pots', i, 'id'], message: 'Each pot needs its own id.', params: { i18n: 'potIdsUnique' } });
     ids.add(id);
   });
 }

@@ -1,6 +1,6 @@
 import { localDate } from './menus';
 import { z } from 'zod';
-import { CHECK_IN_KINDS } from '@/entities/check-in';
+import { CHECK_IN_KINDS } from '@/entities/constants';
 
 /** Readings outside this range are refused: below any kitchen's morning, above any store's safe limit [°C]. */
 export const READING_MIN_C = -20;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { COOK_METHODS } from '@/entities/dish';
+import { COOK_METHODS } from '@/entities/constants';
 import { STOVES } from '@/lib/fuel';
 
 const STOVE_IDS = Object.keys(STOVES) as [string, ...string[]];
@@ -32,9 +32,9 @@ export const dishFields = {
 };
 
 const refineDish = (v: { foodKgPerServing?: number; waterKgPerServing?: number; minPotTempC?: number; safeCoreTempC?: number }, ctx: z.RefinementCtx) => {
-  if (v.foodKgPerServing === 0 && v.waterKgPerServing === 0) ctx.addIssue({ code: 'custom', path: ['foodKgPerServing'], message: 'A serving needs some food or water.' });
+  if (v.foodKgPerServing === 0 && v.waterKgPerServing === 0) ctx.addIssue({ code: 'custom', path: ['foodKgPerServing'], message: 'A serving needs some food or water.', params: { i18n: 'foodOrWater' } });
   if (v.minPotTempC !== undefined && v.safeCoreTempC !== undefined && v.minPotTempC < v.safeCoreTempC)
-    ctx.addIssue({ code: 'custom', path: ['minPotTempC'], message: 'The pot must reach at least the safe core temperature of the food.' });
+    ctx.addIssue({ code: 'custom', path: ['minPotTempC'], message: 'The pot must reach at least the safe core temperature of the food.', params: { i18n: 'potAboveCore' } });
 };
 
 export const createDishSchema = z.strictObject(dishFields).superRefine(refineDish);

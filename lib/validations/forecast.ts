@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { UPLOAD_MODES } from '@/entities/forecast';
+import { UPLOAD_MODES } from '@/entities/constants';
 
 const date = z
   .string({ message: 'Give the day as YYYY-MM-DD.' })

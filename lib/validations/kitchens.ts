@@ -16,7 +16,7 @@ export const kitchenFields = {
   latitude: z.number({ message: 'Latitude is a number of degrees.' }).min(-90, 'Latitude is between −90 and 90°.').max(90, 'Latitude is between −90 and 90°.'),
   longitude: z.number({ message: 'Longitude is a number of degrees.' }).min(-180, 'Longitude is between −180 and 180°.').max(180, 'Longitude is between −180 and 180°.'),
   altitudeM: z.number({ message: 'Altitude is a number of metres.' }).min(-450, 'Altitude is at least −450 m.').max(6000, 'Altitude is at most 6000 m.'),
-  timeZone: z.string({ message: 'Enter a time zone.' }).refine(isTimeZone, 'Use an IANA time zone such as Africa/Nairobi.'),
+  timeZone: z.string({ message: 'Enter a time zone.' }).refine(isTimeZone, { message: 'Use an IANA time zone such as Africa/Nairobi.', params: { i18n: 'timeZone' } }),
   locale,
 };
 

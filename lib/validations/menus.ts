@@ -11,7 +11,7 @@ export const localDate = z
     const [y, m, day] = d.split('-').map(Number) as [number, number, number];
     const t = new Date(Date.UTC(y, m - 1, day));
     return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === day;
-  }, 'That date does not exist.');
+  }, { message: 'That date does not exist.', params: { i18n: 'dateExists' } });
 export const clock = z.string({ message: 'Give a time as HH:MM.' }).regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use a 24-hour time as HH:MM, e.g. 12:30.');
 
 export const menuLineSchema = z
@@ -22,7 +22,7 @@ export const menuLineSchema = z
     earliestStart: clock.nullable().optional(),
   })
   .superRefine((v, ctx) => {
-    if (v.earliestStart && v.earliestStart >= v.serveBy) ctx.addIssue({ code: 'custom', path: ['earliestStart'], message: 'The earliest start must be before the serving time.' });
+    if (v.earliestStart && v.earliestStart >= v.serveBy) ctx.addIssue({ code: 'custom', path: ['earliestStart'], message: 'The earliest start must be before the serving time.', params: { i18n: 'earliestBeforeServe' } });
   });
 
 /** The whole menu of a day, replaced at once (a lead edits the list, then saves). */

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { COOK_METHODS } from '@/entities/dish';
+import { COOK_METHODS } from '@/entities/constants';
 import { cookerBaseSchema } from './cookers';
 import { checkSeries } from './simulations';
 

@@ -32,7 +32,7 @@ export const planningSettingsSchema = z
       .max(10),
   })
   .superRefine((v, ctx) => {
-    if (v.shiftEnd <= v.shiftStart) ctx.addIssue({ code: 'custom', path: ['shiftEnd'], message: 'The shift must end after it starts.' });
+    if (v.shiftEnd <= v.shiftStart) ctx.addIssue({ code: 'custom', path: ['shiftEnd'], message: 'The shift must end after it starts.', params: { i18n: 'shiftEndAfterStart' } });
   });
 
 export const overviewQuery = z.strictObject({ date: localDate });

@@ -14,7 +14,7 @@ export const createInvitationSchema = z
   })
   .superRefine((v, ctx) => {
     if (v.role !== 'coordinator' && !v.kitchenId) {
-      ctx.addIssue({ code: 'custom', path: ['kitchenId'], message: 'Choose the kitchen for a kitchen lead or cook.' });
+      ctx.addIssue({ code: 'custom', path: ['kitchenId'], message: 'Choose the kitchen for a kitchen lead or cook.', params: { i18n: 'kitchenForRole' } });
     }
   });
 
