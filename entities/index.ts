@@ -5,7 +5,6 @@ import { MembershipSchema } from './membership';
 import { InvitationSchema } from './invitation';
 import { PasswordResetSchema } from './password-reset';
 import { AuditEventSchema } from './audit-event';
-import { LoginAttemptSchema } from './login-attempt';
 import { StorageMediumSchema } from './storage-medium';
 import { CookerSchema } from './cooker';
 import { DishSchema } from './dish';
@@ -18,7 +17,7 @@ import { ReadingSchema } from './reading';
 import { IdempotencyRecordSchema } from './idempotency-record';
 import { PushSubscriptionSchema } from './push-subscription';
 import { CookerApiKeySchema } from './cooker-api-key';
-import { RateCounterSchema } from './rate-counter';
+import { RateLimitSchema } from './rate-limit';
 import { SettingSchema } from './setting';
 import { AlertJobSchema } from './alert-job';
 
@@ -30,7 +29,6 @@ export * from './membership';
 export * from './invitation';
 export * from './password-reset';
 export * from './audit-event';
-export * from './login-attempt';
 export * from './storage-medium';
 export * from './cooker';
 export * from './dish';
@@ -44,7 +42,7 @@ export * from './reading';
 export * from './idempotency-record';
 export * from './push-subscription';
 export * from './cooker-api-key';
-export * from './rate-counter';
+export * from './rate-limit';
 export * from './setting';
 export * from './alert-job';
 
@@ -57,7 +55,6 @@ export const allEntities = [
   InvitationSchema,
   PasswordResetSchema,
   AuditEventSchema,
-  LoginAttemptSchema,
   StorageMediumSchema,
   CookerSchema,
   DishSchema,
@@ -70,7 +67,7 @@ export const allEntities = [
   IdempotencyRecordSchema,
   PushSubscriptionSchema,
   CookerApiKeySchema,
-  RateCounterSchema,
+  RateLimitSchema,
   SettingSchema,
   AlertJobSchema,
 ];

@@ -6,6 +6,7 @@ import { Migration20261202004846 } from '../migrations/Migration20261202004846';
 import { Migration20261202010920 } from '../migrations/Migration20261202010920';
 import { Migration20261202023345 } from '../migrations/Migration20261202023345';
 import { Migration20261202024000 } from '../migrations/Migration20261202024000';
+import { Migration20261204213000 } from '../migrations/Migration20261204213000';
 
 /**
  * Migrations applied from code (start script, tests). Listed explicitly so they run without a
@@ -20,4 +21,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202010920', class: Migration20261202010920 },
   { name: 'Migration20261202023345', class: Migration20261202023345 },
   { name: 'Migration20261202024000', class: Migration20261202024000 },
+  { name: 'Migration20261204213000', class: Migration20261204213000 },
 ];

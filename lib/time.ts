@@ -1,50 +1,42 @@
 /**
- * Time-zone helpers on Intl only (IANA zones): local calendar days ↔ UTC instants.
+ * Time-zone helpers (IANA zones): local calendar days ↔ UTC instants, on date-fns and `@date-fns/tz`.
+ *
+ * Wall times that do not exist (the hour skipped when clocks go forward) move forward by the jump
+ * (Paris 2026-03-29 02:30 → 03:30 CEST); wall times that occur twice (the hour repeated when clocks go
+ * back) take the later occurrence, after the change (Paris 2026-10-25 02:30 → 02:30 CET).
  */
+import { TZDate, tzOffset } from '@date-fns/tz';
+import { addDays as addCalendarDays, format } from 'date-fns';
+
+const ymd = (dateStr: string) => dateStr.split('-').map(Number) as [number, number, number];
 
 /** Offset of a zone from UTC at an instant [ms] (local − UTC). */
 export function zoneOffsetMs(timeZone: string, atMs: number): number {
-  const parts = new Intl.DateTimeFormat('en-US', {
-    timeZone,
-    hourCycle: 'h23',
-    year: 'numeric',
-    month: '2-digit',
-    day: '2-digit',
-    hour: '2-digit',
-    minute: '2-digit',
-    second: '2-digit',
-  }).formatToParts(new Date(atMs));
-  const get = (t: string) => Number(parts.find((p) => p.type === t)?.value ?? 0);
-  const asUtc = Date.UTC(get('year'), get('month') - 1, get('day'), get('hour'), get('minute'), get('second'));
-  return asUtc - Math.floor(atMs / 1000) * 1000;
+  return tzOffset(timeZone, new Date(atMs)) * 60_000;
 }
 
-/** UTC instant of a local wall-clock time in a zone (two passes settle DST edges). */
+/** UTC instant [ms] of a local wall-clock time in a zone; hh and mm may run past 23 and 59 (they carry). */
 export function zonedTimeToUtcMs(dateStr: string, timeZone: string, hh = 0, mm = 0): number {
-  const [y, m, d] = dateStr.split('-').map(Number) as [number, number, number];
-  const naive = Date.UTC(y, m - 1, d, hh, mm);
-  let utc = naive - zoneOffsetMs(timeZone, naive);
-  utc = naive - zoneOffsetMs(timeZone, utc);
-  return utc;
+  const [y, m, d] = ymd(dateStr);
+  return new TZDate(y, m - 1, d, hh, mm, timeZone).getTime();
 }
 
-/** [start, end) of a local calendar day as UTC instants [ms]. */
+/** [start, end) of a local calendar day as UTC instants [ms] (23 or 25 hours long on a day clocks change). */
 export function zonedDayBoundsMs(dateStr: string, timeZone: string): [number, number] {
-  const start = zonedTimeToUtcMs(dateStr, timeZone);
-  const [y, m, d] = dateStr.split('-').map(Number) as [number, number, number];
-  const next = new Date(Date.UTC(y, m - 1, d + 1)).toISOString().slice(0, 10);
-  return [start, zonedTimeToUtcMs(next, timeZone)];
+  const [y, m, d] = ymd(dateStr);
+  const start = new TZDate(y, m - 1, d, timeZone);
+  return [start.getTime(), addCalendarDays(start, 1).getTime()];
 }
 
 /** The local calendar date (YYYY-MM-DD) of an instant in a zone. */
 export function localDateString(atMs: number, timeZone: string): string {
-  return new Date(atMs + zoneOffsetMs(timeZone, atMs)).toISOString().slice(0, 10);
+  return format(new TZDate(atMs, timeZone), 'yyyy-MM-dd');
 }
 
 /** Adds whole days to a YYYY-MM-DD date. */
 export function addDays(dateStr: string, days: number): string {
-  const [y, m, d] = dateStr.split('-').map(Number) as [number, number, number];
-  return new Date(Date.UTC(y, m - 1, d + days)).toISOString().slice(0, 10);
+  const [y, m, d] = ymd(dateStr);
+  return format(addCalendarDays(new TZDate(y, m - 1, d, 'UTC'), days), 'yyyy-MM-dd');
 }
 
 /** Tomorrow's local date in a zone (the day leads usually plan). */

@@ -7,7 +7,9 @@
  *   (their names change with their content). Answers from the cache carry `x-hc-from-cache` and
  *   `x-hc-cached-at` so the page can say "last synced HH:MM".
  * - Check-ins and readings are not queued here: the page keeps them in IndexedDB and sends them with
- *   idempotency keys when the connection returns (lib/client/outbox.ts).
+ *   idempotency keys when the connection returns (lib/client/outbox.ts). Each answer that comes from the
+ *   network tells the pages so (`{ type: 'network-ok' }`): a phone back from a tunnel may never fire
+ *   `online`, and its outbox then retries at once instead of at its next timer.
  * - Push: shows the alert sent by the server (JSON: title, body, tag, url) and opens its page on tap.
  * - Signing out (DELETE /api/v1/session) empties the caches: a shared phone keeps no one's plan.
  */
@@ -69,8 +71,21 @@ function withTimeout(promise, ms) {
   });
 }
 
+/** Tells the open pages that a request reached the server (at most once a second). */
+let lastNetworkOk = 0;
+function networkOk() {
+  const now = Date.now();
+  if (now - lastNetworkOk < 1000) return;
+  lastNetworkOk = now;
+  self.clients
+    .matchAll({ type: 'window' })
+    .then((wins) => wins.forEach((w) => w.postMessage({ type: 'network-ok' })))
+    .catch(() => undefined);
+}
+
 async function networkFirst(cacheName, request, timeoutMs) {
   const network = fetch(request);
+  network.then((res) => res.ok && networkOk()).catch(() => undefined);
   try {
     const res = await withTimeout(network, timeoutMs);
     if (res.ok) {
@@ -96,7 +111,10 @@ async function cacheFirst(cacheName, request) {
   const hit = await cache.match(request);
   if (hit) return hit;
   const res = await fetch(request);
-  if (res.ok) await cache.put(request, res.clone());
+  if (res.ok) {
+    networkOk();
+    await cache.put(request, res.clone());
+  }
   return res;
 }
 

@@ -3,7 +3,7 @@
 import { useFormatter, useTranslations } from '../mini-intl';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { TodayCooker, TodayPageData, TodayWarning } from '@/lib/cooks/today';
-import { deleteEntry, flushOutbox, listEntries, newEntry, putEntry, type OutboxEntry } from '@/lib/client/outbox';
+import { deleteEntry, flushOutbox, keepSending, listEntries, newEntry, putEntry, type OutboxEntry } from '@/lib/client/outbox';
 import { usePrefs } from '../prefs';
 import { AlertsToggle } from './alerts-toggle';
 import { SafetyList } from '../safety-list';
@@ -114,6 +114,8 @@ export function TodayView({ kitchenId, userId, timeZone, initial, locale }: { ki
       clearInterval(poll);
     };
   }, [kitchenId, load, flush]);
+
+  useEffect(() => keepSending(flush), [flush]);
 
   /** Every entry goes to the outbox first, then out; offline it simply waits there. */
   const submit = useCallback(

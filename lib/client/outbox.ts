@@ -68,22 +68,34 @@ export function newEntry(input: { userId: string; kitchenId: string; kind: Outbo
 
 export type FlushResult = { sent: number; stopped: 'offline' | 'signed-out' | 'server' | null };
 
+/** A request of the outbox that gets no answer within this time counts as offline (a dead link may never fail). */
+export const SEND_TIMEOUT_MS = 15_000;
+
 let flushing: Promise<FlushResult> | null = null;
+const flushListeners = new Set<(r: FlushResult) => void>();
 
 /**
  * Sends pending entries oldest first. Stops at the first network failure, 401 (signed out), 429 or
  * 5xx, to try again later; marks an entry 'rejected' on any other refusal (e.g. 422) and goes on.
- * One flush at a time per page.
+ * One flush at a time per page: a call during a flush gets that flush's result. Every result goes to the
+ * retry schedules of `keepSending`. A request without an answer in SEND_TIMEOUT_MS counts as offline.
  */
 export function flushOutbox(kitchenId: string, userId: string): Promise<FlushResult> {
-  flushing ??= (async () => {
+  if (flushing) return flushing;
+  flushing = (async () => {
     let sent = 0;
     try {
       for (const e of await listEntries(kitchenId, userId)) {
         if (e.state !== 'pending') continue;
         let res: Response;
         try {
-          res = await fetch(e.url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(e.body), credentials: 'same-origin' });
+          res = await fetch(e.url, {
+            method: 'POST',
+            headers: { 'content-type': 'application/json' },
+            body: JSON.stringify(e.body),
+            credentials: 'same-origin',
+            signal: AbortSignal.timeout(SEND_TIMEOUT_MS),
+          });
         } catch {
           return { sent, stopped: 'offline' as const };
         }
@@ -103,5 +115,91 @@ export function flushOutbox(kitchenId: string, userId: string): Promise<FlushRes
       flushing = null;
     }
   })();
+  const notify = (r: FlushResult) => flushListeners.forEach((l) => l(r));
+  void flushing.then(notify, () => notify({ sent: 0, stopped: 'offline' }));
   return flushing;
+}
+
+/** Retry delays [ms]: 2 s doubling per failure up to 60 s, each times a random factor in [0.5, 1) ("equal jitter"). */
+export const RETRY = { firstMs: 2_000, maxMs: 60_000 } as const;
+
+/**
+ * Delay before the next try after `failures` failed flushes in a row (≥ 1): exponential back-off with equal jitter
+ * (M. Brooker, "Exponential Backoff And Jitter", AWS Architecture Blog, 2015), so phones that come back together
+ * do not all retry in the same second.
+ */
+export function retryDelayMs(failures: number, random: () => number = Math.random): number {
+  const base = Math.min(RETRY.maxMs, RETRY.firstMs * 2 ** Math.max(0, failures - 1));
+  return base / 2 + (base / 2) * random();
+}
+
+export interface RetryDeps {
+  setTimer: (fn: () => void, ms: number) => unknown;
+  clearTimer: (handle: unknown) => void;
+  random: () => number;
+}
+
+/**
+ * When to flush again: after a flush that stopped offline or at a server error, a timer with back-off; a sign
+ * that the network works (`networkOk`, e.g. any successful request) tries at once. A flush that got through,
+ * or stopped at a sign-out (only signing in helps), ends the retries. `run` is the page's flush (which also
+ * refreshes what it shows); the result of every flush, its own or another's, comes back through `noteResult`.
+ */
+export function retrySchedule(run: () => Promise<FlushResult>, deps: RetryDeps) {
+  let failures = 0;
+  let timer: unknown = null;
+  let stopped = false;
+  const clear = () => {
+    if (timer !== null) deps.clearTimer(timer);
+    timer = null;
+  };
+  const tryNow = () => {
+    clear();
+    if (!stopped) void run().catch(() => undefined);
+  };
+  const noteResult = (r: FlushResult) => {
+    if (stopped) return;
+    if (r.stopped === 'offline' || r.stopped === 'server') {
+      failures++;
+      clear();
+      timer = deps.setTimer(tryNow, retryDelayMs(failures, deps.random));
+    } else {
+      failures = 0;
+      clear();
+    }
+  };
+  return {
+    noteResult,
+    /** The network answered something: if a flush is waiting for a retry, try now. */
+    networkOk: () => {
+      if (failures > 0) tryNow();
+    },
+    /** Flushes waiting for a retry (0 when none). */
+    get failures() {
+      return failures;
+    },
+    stop: () => {
+      stopped = true;
+      clear();
+    },
+  };
+}
+
+/**
+ * Keeps a page's outbox going out: retries with back-off after a failed flush (whoever started it), and at once
+ * when the service worker reports an answer from the network (public/sw.js `network-ok`), since a phone back
+ * from a tunnel may never fire `online`. Returns the function that stops it (an effect's clean-up).
+ */
+export function keepSending(run: () => Promise<FlushResult>): () => void {
+  const schedule = retrySchedule(run, { setTimer: (fn, ms) => setTimeout(fn, ms), clearTimer: (h) => clearTimeout(h as ReturnType<typeof setTimeout>), random: Math.random });
+  flushListeners.add(schedule.noteResult);
+  const onMessage = (ev: MessageEvent) => {
+    if ((ev.data as { type?: string } | null)?.type === 'network-ok') schedule.networkOk();
+  };
+  navigator.serviceWorker?.addEventListener('message', onMessage);
+  return () => {
+    schedule.stop();
+    flushListeners.delete(schedule.noteResult);
+    navigator.serviceWorker?.removeEventListener('message', onMessage);
+  };
 }

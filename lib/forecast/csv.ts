@@ -2,7 +2,9 @@
  * Parser of the hourly weather CSV a kitchen lead may upload (pure; no I/O).
  *
  * Format (our own, documented on the forecast page and in the OpenAPI document):
- * - plain comma-separated text, UTF-8, one header line then one line per hour; no quoting; blank lines ignored;
+ * - comma-separated text (RFC 4180: a field may be quoted, "a,b", with "" for a quote), UTF-8 with or without a
+ *   byte-order mark, LF or CRLF line ends; one header line then one line per hour; blank lines ignored; cells
+ *   are trimmed;
  * - header names (any order): `time` and `ghi_w_m2` required; `dni_w_m2`, `dhi_w_m2`, `temp_c`, `wind_m_s`,
  *   `cloud_okta` optional;
  * - `time`: ISO 8601 timestamp with its UTC offset (`2026-12-03T10:00+03:00` or `…Z`), the START of the hour
@@ -12,6 +14,7 @@
  *   [okta, 0–8]. An optional cell may be empty.
  * Every problem is reported with its line number and column; the caller saves nothing when there is one.
  */
+import Papa from 'papaparse';
 import type { HourlyWeather } from '@/lib/solar';
 import { HOUR_MS } from './types';
 
@@ -92,6 +95,51 @@ export function parseIsoWithOffset(s: string): { ms: number } | { error: string 
   return { ms };
 }
 
+/** One record of the file: its trimmed cells, the line (1-based) it starts on, and a quoting problem if any. */
+interface CsvRow {
+  cells: string[];
+  line: number;
+  blank: boolean;
+  error?: string;
+}
+
+const QUOTE_ERRORS: Record<string, string> = {
+  MissingQuotes: 'A quoted field is not closed; end it with a double quote (").',
+  InvalidQuotes: 'A quoted field has text after its closing quote; write a quote inside a quoted field as "".',
+};
+
+/**
+ * Splits the text into records with papaparse (RFC 4180 quoting, comma delimiter, cells trimmed). Line ends are
+ * made LF first, so CRLF, LF and CR files (and mixtures) read alike, and a record's line is the number of line
+ * ends before its first character plus one (papaparse's step cursor is the offset just after each record).
+ */
+function splitRows(text: string): CsvRow[] {
+  const src = text.replace(/^\uFEFF/, '').replace(/\r\n?/g, '\n');
+  const rows: CsvRow[] = [];
+  let start = 0;
+  let line = 1;
+  Papa.parse<string[]>(src, {
+    delimiter: ',',
+    newline: '\n',
+    skipEmptyLines: false,
+    transform: (v) => v.trim(),
+    step: (r) => {
+      const cells = r.data;
+      const err = r.errors[0];
+      rows.push({
+        cells,
+        line,
+        blank: cells.length === 1 && cells[0] === '',
+        ...(err ? { error: QUOTE_ERRORS[err.code] ?? err.message } : {}),
+      });
+      const end = r.meta.cursor;
+      for (let i = start; i < end && i < src.length; i++) if (src.charCodeAt(i) === 10) line++;
+      start = end;
+    },
+  });
+  return rows;
+}
+
 /**
  * Parses the hourly weather CSV.
  * @param text the file's text
@@ -101,39 +149,40 @@ export function parseIsoWithOffset(s: string): { ms: number } | { error: string 
 export function parseWeatherCsv(text: string, maxIssues = 20): ParsedHours {
   const found = new IssueList(maxIssues);
   const issue = found.add;
-  const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
-  let headerLine = -1;
-  for (let i = 0; i < lines.length; i++) if (lines[i]!.trim()) {
-    headerLine = i;
-    break;
-  }
-  if (headerLine < 0) {
+  const rows = splitRows(text);
+  const headerIdx = rows.findIndex((r) => !r.blank);
+  if (headerIdx < 0) {
     issue(1, '(file)', 'The file is empty.');
     return { hours: [], issues: found.issues, issueCount: found.count };
   }
-  const header = lines[headerLine]!.split(',').map((c) => c.trim().toLowerCase());
+  const headerRow = rows[headerIdx]!;
+  const headerLine = headerRow.line;
+  if (headerRow.error) issue(headerLine, '(row)', headerRow.error);
+  const header = headerRow.cells.map((c) => c.toLowerCase());
   const cols = new Map<CsvColumn, number>();
   header.forEach((name, idx) => {
     if (!(CSV_COLUMNS as readonly string[]).includes(name)) {
-      issue(headerLine + 1, name || `column ${idx + 1}`, `Unknown column; the columns are ${CSV_COLUMNS.join(', ')}.`);
+      issue(headerLine, name || `column ${idx + 1}`, `Unknown column; the columns are ${CSV_COLUMNS.join(', ')}.`);
     } else if (cols.has(name as CsvColumn)) {
-      issue(headerLine + 1, name, 'This column appears twice.');
+      issue(headerLine, name, 'This column appears twice.');
     } else {
       cols.set(name as CsvColumn, idx);
     }
   });
-  for (const req of ['time', 'ghi_w_m2'] as const) if (!cols.has(req)) issue(headerLine + 1, req, `The header needs a "${req}" column.`);
+  for (const req of ['time', 'ghi_w_m2'] as const) if (!cols.has(req)) issue(headerLine, req, `The header needs a "${req}" column.`);
   if (found.count) return { hours: [], issues: found.issues, issueCount: found.count };
 
   const hours: HourlyWeather[] = [];
   const seen = new Map<number, number>();
   let firstT: number | null = null;
   let firstLine = 0;
-  for (let i = headerLine + 1; i < lines.length; i++) {
-    const raw = lines[i]!;
-    if (!raw.trim()) continue;
-    const line = i + 1;
-    const cells = raw.split(',').map((c) => c.trim());
+  for (const row of rows.slice(headerIdx + 1)) {
+    if (row.blank) continue;
+    const { line, cells } = row;
+    if (row.error) {
+      issue(line, '(row)', row.error);
+      continue;
+    }
     if (cells.length !== header.length) {
       issue(line, '(row)', `Expected ${header.length} fields as in the header, found ${cells.length}.`);
       continue;
@@ -201,7 +250,7 @@ export function parseWeatherCsv(text: string, maxIssues = 20): ParsedHours {
     if (values.cloud_okta !== undefined) h.cloudOkta = values.cloud_okta;
     hours.push(h);
   }
-  if (!hours.length && !found.count) issue(headerLine + 2, '(file)', 'The file has a header but no hours.');
+  if (!hours.length && !found.count) issue(headerLine + 1, '(file)', 'The file has a header but no hours.');
   hours.sort((a, b) => a.t - b.t);
   return { hours, issues: found.issues, issueCount: found.count };
 }

@@ -6,14 +6,25 @@ import { QUEUES } from './boss';
 import { forecastRefreshCron, handleForecastRefresh, type ForecastRefreshData } from './forecast-refresh';
 
 export interface HeartbeatData {
-  sentAt: string;
+  /** When a caller sent it by hand; the scheduled runs carry none (their queue row's creation time counts). */
+  sentAt?: string;
 }
 
-/** The trivial scheduled job: proves that scheduling, queueing and working are wired end to end. */
-export async function handleHeartbeat(jobs: PgBoss.Job<HeartbeatData>[]): Promise<{ receivedAt: string; lagMs: number }[]> {
+/**
+ * The trivial scheduled job: proves that scheduling, queueing and working are wired end to end, and how long a
+ * job waited. The sent time is the job's own queue row (`createdOn`, set by pg-boss when the cron or a caller
+ * sends it), else the `sentAt` a caller put in the data; a schedule's data is fixed when the schedule is saved,
+ * so it must not carry the time itself.
+ */
+export async function handleHeartbeat(
+  jobs: (PgBoss.Job<HeartbeatData> & { createdOn?: Date })[],
+  nowMs: () => number = Date.now,
+): Promise<{ sentAt: string | null; receivedAt: string; lagMs: number | null }[]> {
   return jobs.map((j) => {
-    const sent = j.data?.sentAt ? Date.parse(j.data.sentAt) : Date.now();
-    return { receivedAt: new Date().toISOString(), lagMs: Date.now() - sent };
+    const received = nowMs();
+    const sent = j.createdOn ? j.createdOn.getTime() : j.data?.sentAt ? Date.parse(j.data.sentAt) : Number.NaN;
+    const known = Number.isFinite(sent);
+    return { sentAt: known ? new Date(sent).toISOString() : null, receivedAt: new Date(received).toISOString(), lagMs: known ? received - sent : null };
   });
 }
 
@@ -31,13 +42,14 @@ export interface WorkerOptions {
 export async function registerWorkers(boss: PgBoss, opts: WorkerOptions = {}): Promise<void> {
   const em = opts.em ?? getEm;
   const poll = opts.pollingIntervalSeconds !== undefined ? { pollingIntervalSeconds: opts.pollingIntervalSeconds } : {};
-  await boss.work<HeartbeatData>(QUEUES.heartbeat, async (jobs) => {
+  await boss.work<HeartbeatData>(QUEUES.heartbeat, { includeMetadata: true }, async (jobs) => {
     const r = await handleHeartbeat(jobs);
-    console.log(`[worker] heartbeat, lag ${r[0]?.lagMs ?? 0} ms`);
+    console.log(`[worker] heartbeat, lag ${r[0]?.lagMs ?? '?'} ms`);
     return r;
   });
-  // Every 5 minutes; pg-boss keeps one schedule per name however many workers run.
-  await boss.schedule(QUEUES.heartbeat, '*/5 * * * *', { sentAt: new Date().toISOString() });
+  // Every 5 minutes; pg-boss keeps one schedule per name however many workers run. No time in the data: it
+  // would be this start's time in every run (see handleHeartbeat).
+  await boss.schedule(QUEUES.heartbeat, '*/5 * * * *', {});
 
   await boss.work<ForecastRefreshData>(QUEUES.forecastRefresh, async (jobs) => {
     const out = [];

@@ -108,26 +108,19 @@ describe('password reset', () => {
   });
 });
 
-describe('no timing difference between registered and unknown addresses', () => {
-  it('a registered address is answered about as fast as an unknown one', async () => {
-    // Regression: the row and the SMTP round trip ran before the answer, so a registered address
-    // took a median 125 ms against 12 ms for an unknown one (measured on the test server), which
-    // told anyone which addresses have an account. The bound leaves room for a busy machine.
+describe('registered and unknown addresses are answered alike', () => {
+  // Regression: the row and the SMTP round trip ran before the answer, so a registered address took a median
+  // 125 ms against 12 ms for an unknown one, which told anyone which addresses have an account. That the work
+  // runs after the answer for every address is tested on the code path (tests/lib/http/password-reset-route.test.ts);
+  // the timing is printed by tests/bench/password-reset.bench.ts (a stopwatch on a shared machine is no test).
+  it('the same answer for both, and the mail still goes to the registered address', async () => {
     const c = new Client();
-    const time = async (email: string) => {
-      const start = performance.now();
-      const r = await c.post('/api/v1/password-resets', { email });
-      expect(r.status).toBe(202);
-      return performance.now() - start;
-    };
-    const registered: number[] = [];
-    const unknown: number[] = [];
-    for (let i = 0; i < 9; i++) {
-      unknown.push(await time(`nobody.${i}.${randomUUID().slice(0, 8)}@example.org`));
-      registered.push(await time(w.emails.cookB));
+    for (let i = 0; i < 3; i++) {
+      const unknown = await c.post('/api/v1/password-resets', { email: `nobody.${i}.${randomUUID().slice(0, 8)}@example.org` });
+      const known = await c.post('/api/v1/password-resets', { email: w.emails.cookB });
+      expect([unknown.status, known.status]).toEqual([202, 202]);
+      expect(known.json).toEqual(unknown.json);
     }
-    const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
-    expect(median(registered) - median(unknown)).toBeLessThan(40);
-    await waitForMail(w.emails.cookB, { count: 9 }); // the work still happens, after the answer
+    await waitForMail(w.emails.cookB, { count: 3 });
   });
 });

@@ -37,6 +37,25 @@ afterAll(async () => {
   await closeTestOrm();
 });
 
+/** Entries left in the phone's outbox (IndexedDB "hearthcast"/"outbox", lib/client/outbox.ts). */
+const outboxSize = () =>
+  page.evaluate(
+    () =>
+      new Promise<number>((resolve, reject) => {
+        const open = indexedDB.open('hearthcast', 1);
+        open.onerror = () => reject(open.error);
+        open.onsuccess = () => {
+          const db = open.result;
+          const req = db.transaction('outbox', 'readonly').objectStore('outbox').count();
+          req.onsuccess = () => {
+            resolve(req.result);
+            db.close();
+          };
+          req.onerror = () => reject(req.error);
+        };
+      }),
+  );
+
 /** The first slot card that still has a "Started" button (the "now" or "next" one). */
 const firstOpenCard = () => page.locator('article[data-batch]').filter({ has: page.getByRole('button', { name: 'Started' }) }).first();
 
@@ -117,15 +136,38 @@ describe('Today page on a phone', () => {
     await shot('today-offline-checkin.png');
 
     await ctx.setOffline(false);
-    await waitUntil('offline check-in reached the server', async () => (await count(CheckInSchema, { kitchen: w.kitchenA.id, batchId, kind: 'done' })) === 1, 20_000);
+    // Sent on the `online` event, or else by the outbox's retry timer (2 s doubling, lib/client/outbox.ts): the
+    // time-out is a ceiling for both, the wait ends as soon as the row is there.
+    await waitUntil('offline check-in reached the server', async () => (await count(CheckInSchema, { kitchen: w.kitchenA.id, batchId, kind: 'done' })) === 1, 30_000);
     await expect.poll(() => page.getByText(/waiting to be sent/).count(), { timeout: 10_000 }).toBe(0);
-    // A later page load flushes again: the entry is gone from the outbox, and nothing doubles.
+    // A later page load flushes again: the entry is gone from the phone's outbox, so nothing can double.
     await page.reload();
     await page.getByText(/^Last synced \d\d:\d\d$/).waitFor();
-    await page.waitForTimeout(1000);
+    await expect.poll(() => outboxSize()).toBe(0);
     expect(await count(CheckInSchema, { kitchen: w.kitchenA.id, batchId, kind: 'done' })).toBe(1);
     expect(await count(CheckInSchema, { kitchen: w.kitchenA.id, batchId })).toBe(2);
     await shot('today-back-online.png');
+  });
+
+  it('a reading whose send fails while the phone still counts as online (no `online` event) is sent by the retry timer', async () => {
+    // A phone coming out of a tunnel: its requests failed, but the browser never went offline, so no `online`
+    // event will come. The page's own minute poll is slower than this test's ceiling; the outbox's retry is not.
+    const readings = `${baseUrl}/api/v1/kitchens/${w.kitchenA.id}/readings`;
+    let refused = 0;
+    await ctx.route(readings, (route) => (refused++, route.abort('internetdisconnected')));
+    const section = page.locator('section').filter({ has: page.getByRole('heading', { name: 'Dish 1 (sunflower store)', level: 2 }) });
+    await section.getByLabel('Store (°C)').fill('141');
+    await section.getByLabel('Pot (°C)').fill('70');
+    await section.getByRole('button', { name: 'Save reading' }).click();
+    await page.getByText('1 entry waiting to be sent').waitFor();
+    expect(await page.evaluate(() => navigator.onLine)).toBe(true);
+    await expect.poll(() => refused).toBeGreaterThanOrEqual(1);
+    const before = await count(ReadingSchema, { cooker: cookerId, source: 'manual' });
+    await ctx.unroute(readings);
+    await waitUntil('retried reading reached the server', async () => (await count(ReadingSchema, { cooker: cookerId, source: 'manual' })) === before + 1, 30_000);
+    await expect.poll(() => page.getByText(/waiting to be sent/).count(), { timeout: 10_000 }).toBe(0);
+    await expect.poll(() => outboxSize()).toBe(0);
+    expect(await count(ReadingSchema, { cooker: cookerId, source: 'manual' })).toBe(before + 1);
   });
 
   it('first-load JavaScript: what the Today page adds to the signed-in app is small, and no chart library loads', async () => {

@@ -74,7 +74,7 @@ export default async function setup(project: TestProject) {
   await (await import('../../lib/jobs/client')).stopBossClient();
   // Failed sign-ins count for 15 minutes (lib/auth/throttle.ts): left over from a run a few minutes
   // ago, they would make the fixed addresses of the throttling tests answer 429 too early.
-  await orm.em.getConnection().execute('delete from login_attempts');
+  await orm.em.getConnection().execute('delete from rate_limits');
   await orm.close(true);
 
   const mailboxDir = await mkdtemp(path.join(tmpdir(), 'hearthcast-mail-'));

@@ -5,7 +5,7 @@
 import type PgBoss from 'pg-boss';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { QUEUES, startBoss } from '../../lib/jobs/boss';
-import { registerWorkers, type HeartbeatData } from '../../lib/jobs/worker';
+import { handleHeartbeat, registerWorkers, type HeartbeatData } from '../../lib/jobs/worker';
 
 let boss: PgBoss;
 beforeAll(async () => {
@@ -50,5 +50,35 @@ describe('heartbeat job', () => {
     // Worked within the polling timeout above; 15 s is the bound, not a performance claim.
     expect(lagMs as number).toBeLessThan(15_000);
     expect(Date.parse(receivedAt as string)).toBeGreaterThanOrEqual(Date.parse(sentAt));
+  });
+
+  it('a scheduled run is timed from its own queue row, not from when the worker saved the schedule', async () => {
+    // pg-boss's cron sends each run with the data saved by boss.schedule(), so that data is the same in every
+    // run (pg-boss 10 README, "schedule()": "data" is sent with each job). A time in it would be a stale one.
+    const schedule = (await boss.getSchedules()).find((x) => x.name === QUEUES.heartbeat);
+    expect(schedule).toBeDefined();
+    expect((schedule!.data as HeartbeatData | undefined)?.sentAt).toBeUndefined();
+
+    // A run as the cron makes it: the schedule's data, sent now.
+    const id = await boss.send(QUEUES.heartbeat, (schedule!.data ?? {}) as object);
+    const job = await waitForJob(QUEUES.heartbeat, id!);
+    expect(job.state).toBe('completed');
+    const output = job.output as { value?: unknown } | null;
+    const [result] = (Array.isArray(output?.value) ? output.value : [output]) as { sentAt: string; receivedAt: string; lagMs: number }[];
+    expect(result!.sentAt).toBe(job.createdOn.toISOString());
+    expect(result!.lagMs).toBe(Date.parse(result!.receivedAt) - job.createdOn.getTime());
+    expect(result!.lagMs).toBeGreaterThanOrEqual(0);
+    expect(result!.lagMs).toBeLessThan(15_000); // the polling bound above, not a performance claim
+  });
+
+  it('lag = clock at work − the creation of the job row, with an injected clock', async () => {
+    const createdOn = new Date(Date.UTC(2026, 11, 4, 12, 0, 0));
+    const now = createdOn.getTime() + 90_000;
+    const job = { id: 'j', name: QUEUES.heartbeat, data: {}, createdOn } as unknown as Parameters<typeof handleHeartbeat>[0][number];
+    expect(await handleHeartbeat([job], () => now)).toEqual([{ sentAt: '2026-12-04T12:00:00.000Z', receivedAt: '2026-12-04T12:01:30.000Z', lagMs: 90_000 }]);
+    // Without a queue row time, the caller's sentAt; without either, no lag rather than a made-up 0.
+    const byHand = { ...job, createdOn: undefined, data: { sentAt: '2026-12-04T12:01:00.000Z' } };
+    expect((await handleHeartbeat([byHand], () => now))[0]!.lagMs).toBe(30_000);
+    expect((await handleHeartbeat([{ ...job, createdOn: undefined }], () => now))[0]!.lagMs).toBeNull();
   });
 });

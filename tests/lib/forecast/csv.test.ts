@@ -119,3 +119,46 @@ describe('parseWeatherCsv — broken files', () => {
     expect(p.hours).toEqual([]);
   });
 });
+
+describe('parseWeatherCsv — quoting and line ends (RFC 4180, Shafranovich 2005, sections 2.5–2.7)', () => {
+  const issues = (text: string) => parseWeatherCsv(text).issues.map((i) => `line ${i.line}.${i.field}: ${i.message}`);
+
+  it('a quoted field may hold a comma: it stays one field, and its text is reported whole', () => {
+    // "1,5" is one field (RFC 4180 §2.6), so the row has 2 fields like its header and the cell is not a number.
+    expect(issues('time,ghi_w_m2\n2026-12-03T10:00Z,"1,5"\n')).toEqual(['line 2.ghi_w_m2: Not a number: "1,5" (W/m²).']);
+    const p = parseWeatherCsv('"time","ghi_w_m2"\n"2026-12-03T10:00Z","500"\n');
+    expect(p.issues).toEqual([]);
+    expect(p.hours).toEqual([{ t: Date.UTC(2026, 11, 3, 10), ghiWm2: 500, tAirC: Number.NaN }]);
+  });
+
+  it('a byte-order mark before a quoted header is not part of the first column name', () => {
+    const p = parseWeatherCsv('\uFEFF"time",ghi_w_m2\r\n2026-12-03T10:00Z,500\r\n');
+    expect(p.issues).toEqual([]);
+    expect(p.hours).toHaveLength(1);
+  });
+
+  it('CRLF line ends: no carriage return left in the last cell, and line numbers count CRLF once', () => {
+    const p = parseWeatherCsv('time,ghi_w_m2,temp_c\r\n2026-12-03T10:00Z,500,21.5\r\n\r\n2026-12-03T11:00Z,600,x\r\n');
+    expect(p.hours).toEqual([{ t: Date.UTC(2026, 11, 3, 10), ghiWm2: 500, tAirC: 21.5 }]);
+    expect(p.issues).toEqual([{ line: 4, field: 'temp_c', message: 'Not a number: "x" (°C).' }]);
+  });
+
+  it('old Mac CR-only and mixed line ends read like LF', () => {
+    const p = parseWeatherCsv('time,ghi_w_m2\r2026-12-03T10:00Z,1\n2026-12-03T11:00Z,2\r\n2026-12-03T12:00Z,3');
+    expect(p.issues).toEqual([]);
+    expect(p.hours.map((h) => h.ghiWm2)).toEqual([1, 2, 3]);
+  });
+
+  it('a quoted line break keeps the following line numbers true to the file', () => {
+    // Record 2 spans lines 2–3 (RFC 4180 §2.6); the next record starts on line 4.
+    expect(issues('time,ghi_w_m2\n"2026-12-03\nT10:00Z",1\n2026-12-03T11:00Z,-1\n')).toEqual([
+      'line 2.time: Use an ISO 8601 time with its offset, e.g. 2026-12-03T10:00+03:00.',
+      'line 4.ghi_w_m2: Must be between 0 and 1500 W/m²; got -1.',
+    ]);
+  });
+
+  it('a quote that is never closed is reported at the line it opens', () => {
+    const r = issues('time,ghi_w_m2\n2026-12-03T10:00Z,1\n2026-12-03T11:00Z,"2\n');
+    expect(r).toEqual(['line 3.(row): A quoted field is not closed; end it with a double quote (").']);
+  });
+});
