@@ -16,7 +16,7 @@ import { zonedTimeToUtcMs } from '@/lib/time';
 import { getMenuLines, hm, splitIntoBatches, type MenuBatch } from '@/lib/menus';
 import { cookerMedium, getActiveCookers } from '@/lib/cookers';
 import { getPlanningWeather, kitchenSite } from './weather';
-import { safetyNotesForSlot, type SafetyNote } from '@/lib/safety/notes';
+import { meltingRangeForMediumName, safetyNotesForSlot, type SafetyNote } from '@/lib/safety/notes';
 
 export interface PlanCookerView {
   id: string;
@@ -167,7 +167,15 @@ export function slotSafetyNotes(batches: MenuBatch[], result: PlannerResult, coo
     });
     // Plans stored before the medium was recorded fall back to the oil cautions (the stricter set).
     const medium = c.medium ?? { kind: 'oil', smokePointC: null };
-    out[s.batchId] = safetyNotesForSlot({ method: b.method, mediumKind: medium.kind, smokePointC: medium.smokePointC, predictedStoreMaxC: Number.isFinite(peak) ? peak : null, safeCoreTempC: b.safeCoreTempC });
+    out[s.batchId] = safetyNotesForSlot({
+      method: b.method,
+      mediumKind: medium.kind,
+      smokePointC: medium.smokePointC,
+      predictedStoreMaxC: Number.isFinite(peak) ? peak : null,
+      melting: medium.kind === 'pcm' && 'name' in medium ? meltingRangeForMediumName(medium.name) : null,
+      maxSafeTempC: c.maxSafeTempC,
+      safeCoreTempC: b.safeCoreTempC,
+    });
   }
   return out;
 }
