@@ -10,7 +10,7 @@ export function SafetyList({ notes, compact = false }: { notes: SafetyNote[]; co
   const t = useTranslations('safety');
   const { fmtTemp } = usePrefs();
   // Temperatures (params named …C, in °C) are shown in the reader's unit, like the rest of the page.
-  const words = (n: SafetyNote) => ({ meltC: fmtTemp(100), ...Object.fromEntries(Object.entries(n.params ?? {}).map(([k, v]) => [k, typeof v === 'number' && k.endsWith('C') ? fmtTemp(v) : v])) });
+  const words = (n: SafetyNote) => Object.fromEntries(Object.entries(n.params ?? {}).map(([k, v]) => [k, typeof v === 'number' && k.endsWith('C') ? fmtTemp(v) : v]));
   // Compact (the lead's plan): the dangers and warnings, and the reminder; cooks see every note.
   const shown = compact ? notes.filter((n) => n.level !== 'info' || n.code === 'local-codes') : notes;
   if (!shown.length) return null;

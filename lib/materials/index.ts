@@ -17,6 +17,7 @@ export {
 } from './oils';
 export {
   createPhaseChangeMaterial,
+  liquidFractionEnthalpyMethod,
   erythritol,
   magnesiumChlorideHexahydrate,
   dMannitol,

@@ -18,6 +18,22 @@
 import { createPiecewiseLinearEnthalpy } from './enthalpy';
 import type { StorageMedium } from './types';
 
+/**
+ * Liquid (melt) fraction f [0..1] of a medium at T [°C] by the enthalpy method (Voller & Prakash 1987, Int. J. Heat
+ * Mass Transfer 30(8):1709; see ./enthalpy.ts): with the latent heat spread uniformly over [solidus, liquidus] (this
+ * file's convention), the latent part of h(T) is L·f with f = (T − T_solidus)/(T_liquidus − T_solidus), clipped to
+ * [0, 1]. A medium without a melting range is liquid wherever it has a viscosity (f = 1) and solid elsewhere (f = 0).
+ * @param tC temperature [°C]
+ * @returns f [–]
+ */
+export function liquidFractionEnthalpyMethod(medium: StorageMedium, tC: number): number {
+  const m = medium.melting;
+  if (m === undefined) return medium.viscosity(tC) > 0 ? 1 : 0;
+  if (tC <= m.solidusC) return 0;
+  if (tC >= m.liquidusC) return 1;
+  return (tC - m.solidusC) / (m.liquidusC - m.solidusC);
+}
+
 /** A linear property p(T) = valueAtRef + slopePerK·(T − refC). */
 interface LinearProperty {
   refC: number;

@@ -1,4 +1,4 @@
-import type { Cooker, Kitchen } from '@/entities';
+import type { Cooker, Kitchen, StorageMedium as CustomMediumRow } from '@/entities';
 import { resolveWeatherToAperture, type HourlyWeather } from '@/lib/solar';
 import type { WeatherStep } from '@/lib/thermal';
 import { simulateCooker } from '@/lib/thermal';
@@ -9,10 +9,20 @@ import type { SimulationInput } from '@/lib/validations/simulations';
 /**
  * Runs the thermal model for POST /api/v1/simulations: a stored cooker (with its kitchen's place)
  * or an inline one, driven by aperture steps or by hourly weather resolved with lib/solar.
+ * An inline cooker with mediumId "custom" needs its custom medium's row (looked up by the caller within the
+ * viewer's organisations); without it the request is refused naming cooker.customMediumId.
  */
-export function runSimulationRequest(input: SimulationInput, stored?: { cooker: Cooker; kitchen: Kitchen }) {
+export function runSimulationRequest(
+  input: SimulationInput,
+  stored?: { cooker: Cooker; kitchen: Kitchen },
+  inlineCustom?: Pick<CustomMediumRow, 'name' | 'rows' | 'smokePointC'> | null,
+) {
   const def = stored?.cooker ?? { ...input.cooker!, pots: normalisePots(input.cooker!.pots) };
-  const spec = toCookerSpec(def as Cooker, stored?.cooker.customMedium ?? null);
+  const custom = stored ? (stored.cooker.customMedium ?? null) : (inlineCustom ?? null);
+  if (def.mediumId === 'custom' && !custom) {
+    throw unprocessable('Choose a custom medium of your organisation.', { [stored ? 'cookerId' : 'cooker.customMediumId']: 'Unknown custom medium.' });
+  }
+  const spec = toCookerSpec(def as Cooker, custom);
   const site = input.site
     ? { latitudeDeg: input.site.latitude, longitudeDeg: input.site.longitude, altitudeM: input.site.altitudeM }
     : stored

@@ -3,7 +3,7 @@
  * and the store's predicted peak during the slot (lib/safety/notes.ts chooses and explains the rules).
  */
 import type { PlanCookerView, StoredBatch, StoredResult } from '@/entities/plan-records';
-import { safetyNotesForSlot, type SafetyNote } from './notes';
+import { meltingRangeForMediumName, safetyNotesForSlot, type SafetyNote } from './notes';
 
 /** Before and after a slot, the store's predicted peak is looked for this much further [ms]. */
 const PEAK_MARGIN_MS = 10 * 60_000;
@@ -18,7 +18,15 @@ export function slotSafetyNotes(batches: readonly StoredBatch[], result: Pick<St
     c.series.t.forEach((t, i) => {
       if (t >= s.startMs - PEAK_MARGIN_MS && t <= s.doneMs + PEAK_MARGIN_MS) peak = Math.max(peak, c.series.storeTempC[i] ?? -Infinity);
     });
-    out[s.batchId] = safetyNotesForSlot({ method: b.method, mediumKind: c.medium.kind, smokePointC: c.medium.smokePointC, predictedStoreMaxC: Number.isFinite(peak) ? peak : null, safeCoreTempC: b.safeCoreTempC });
+    out[s.batchId] = safetyNotesForSlot({
+      method: b.method,
+      mediumKind: c.medium.kind,
+      smokePointC: c.medium.smokePointC,
+      predictedStoreMaxC: Number.isFinite(peak) ? peak : null,
+      melting: c.medium.kind === 'pcm' ? meltingRangeForMediumName(c.medium.name) : null,
+      maxSafeTempC: c.maxSafeTempC,
+      safeCoreTempC: b.safeCoreTempC,
+    });
   }
   return out;
 }

@@ -9,7 +9,12 @@
  *   Nu = {0.825 + 0.387·Ra^(1/6) / [1 + (0.492/Pr)^(9/16)]^(8/27)}² (secondary).
  * Known pitfall: a solid store (PCM below its solidus) does not convect — viscosity() is NaN there and the
  * coefficient falls back to conduction, h = k/L.
+ * Phase-change store in its melting range (mushy): the coupling is weighted by the melt fraction f of the enthalpy
+ * method between the solid-conduction limit (f = 0) and the melt-convection limit (f = 1) — see
+ * createNaturalConvectionCoupling. Without it a half-molten store coupled like a solid one (about 2 W/K instead of
+ * about 100 W/K for a 50 L pot on erythritol), because the film mean under a cold pot lies below the melting range.
  */
+import { liquidFractionEnthalpyMethod } from '../materials/pcm';
 import type { StorageMedium } from '../materials/types';
 
 /** Standard gravity [m/s²] (CGPM 1901). */
@@ -228,6 +233,20 @@ export function filmGroups(medium: StorageMedium, tC: number, out: Float64Array)
  * - floor: conduction h ≥ k/L with L = D/4 (area/perimeter of the bottom), also used when the store is solid or the
  *   pot is the hotter side of the bottom (stable layer).
  * Properties at the film temperature (T_store + T_pot)/2, from the table above.
+ * Phase-change stores (medium.melting set):
+ * - the melt convects with the liquid's properties, evaluated at max(film, liquidus + 1 K): under a cold pot the film
+ *   mean falls below the melting range, but what convects is melt (erythritol in particular supercools tens of
+ *   kelvin), and inside the range the blended density of the enthalpy model would give the melting contraction
+ *   (≈ 0.07 1/K for erythritol) as a spurious expansion coefficient. A frozen crust on the pot is not modelled.
+ * - in the melting range (mushy store) the conductance is weighted by the melt fraction f (liquidFractionEnthalpyMethod):
+ *   UA = f·UA_melt + (1 − f)·UA_solid, UA_solid = k(T_film)·A/L (conduction). This is the lumped form of the
+ *   enthalpy–porosity method (Voller & Prakash 1987, "A fixed grid numerical modelling methodology for
+ *   convection–diffusion mushy region phase-change problems", Int. J. Heat Mass Transfer 30(8):1709–1719; Brent,
+ *   Voller & Reid 1988, Numer. Heat Transfer 13:297–318, validated on the gallium melting experiment of Gau &
+ *   Viskanta 1986): a mushy zone is a porous medium of porosity f, with convection fully damped at f = 0 and free at
+ *   f = 1, and mixture properties weighted by f. Read as areas: the fraction f of the pot's contact area is wetted
+ *   by convecting melt, the rest rests against solid. It is continuous at the solidus (conduction) and at the
+ *   liquidus (melt convection).
  * The pot-side (food/water) film resistance and the pot wall are neglected: the oil side's h is an order of magnitude
  * below that of water in natural convection or boiling.
  * @returns a function ua(tStoreC, tPotC) → [W/K] that reuses its scratch space (no allocation per call)
@@ -244,17 +263,12 @@ export function createNaturalConvectionCoupling(
   const floorLength = g.diameterM / 4;
   const grp = new Float64Array(4);
   const table = filmGroupTable(medium);
-  const liquidusC = medium.melting?.liquidusC;
-  return (tStoreC: number, tPotC: number): number => {
-    let liquid = filmGroupsFromTable(table, medium, 0.5 * (tStoreC + tPotC), grp);
-    // A molten PCM store under a cold pot: the film mean falls below the melting range, but the melt that
-    // convects is liquid (erythritol in particular supercools tens of kelvin). Evaluate the melt just above
-    // its liquidus instead of treating the whole store as solid. A frozen crust on the pot is not modelled.
-    if (!liquid && liquidusC !== undefined && tStoreC > liquidusC) liquid = filmGroupsFromTable(table, medium, liquidusC + 1, grp);
+  const melting = medium.melting;
+
+  /** UA of a convecting fluid with the property groups in grp (filled, liquid) and store − pot difference dT [W/K]. */
+  const convectiveUa = (dT: number): number => {
     const k = grp[3]!;
     const hFloor = k / floorLength;
-    if (!liquid) return hFloor * contactAreaM2;
-    const dT = tStoreC - tPotC;
     const c = Math.cbrt(grp[0]! * (dT < 0 ? -dT : dT)); // (g·β·|ΔT|/(ν·α))^(1/3) [1/m]
     // Bottom: Globe & Dropkin 1959 with the depth cancelled, only when the oil below is the hotter side.
     const hb = dT > 0 ? grp[1]! * c : 0;
@@ -266,6 +280,27 @@ export function createNaturalConvectionCoupling(
       ua += (hw > hFloor ? hw : hFloor) * aWall;
     }
     return ua;
+  };
+
+  if (melting === undefined) {
+    return (tStoreC: number, tPotC: number): number => {
+      const liquid = filmGroupsFromTable(table, medium, 0.5 * (tStoreC + tPotC), grp);
+      if (!liquid) return (grp[3]! / floorLength) * contactAreaM2;
+      return convectiveUa(tStoreC - tPotC);
+    };
+  }
+
+  const meltFilmMinC = melting.liquidusC + 1;
+  return (tStoreC: number, tPotC: number): number => {
+    const f = liquidFractionEnthalpyMethod(medium, tStoreC);
+    const tFilm = 0.5 * (tStoreC + tPotC);
+    // Solid-conduction limit with the (mixture) conductivity at the film temperature.
+    const uaSolid = f < 1 ? (medium.conductivity(tFilm) / floorLength) * contactAreaM2 : 0;
+    if (f <= 0) return uaSolid;
+    // Melt-convection limit: the liquid's properties at max(film, liquidus + 1 K).
+    if (!filmGroupsFromTable(table, medium, tFilm > meltFilmMinC ? tFilm : meltFilmMinC, grp)) return uaSolid;
+    const uaMelt = convectiveUa(tStoreC - tPotC);
+    return f * uaMelt + (1 - f) * uaSolid;
   };
 }
 

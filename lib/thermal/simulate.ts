@@ -12,7 +12,8 @@
  *   drawn from the top, the N-layer store stays close to the one-node store; it departs from it only where a stable
  *   gradient exists (a warmer top). Geometry: a cylinder of height = diameter (assumption, no source).
  * - Pot: a node of capacity C_p = m_pot·c_pot + m_food·c_food + m_water·c_water coupled to the store node by
- *   UA_c (constant, or natural convection re-evaluated when either temperature moves by > 0.25 K), losing
+ *   UA_c (constant, or natural convection re-evaluated when either temperature moves by > 0.25 K, or the store by
+ *   > 0.02 K inside a PCM's melting range, where the coupling follows the melt fraction), losing
  *   U_lid·A_lid·(T_p − T_a) (× LID_OFF_LOSS_FACTOR with the lid off). Once water reaches the boiling point (altitude,
  *   ./boiling.ts) the pot stays there and its net heat boils water off (2.257 MJ/kg) until the water is gone; with
  *   the lid off, the extra loss over the lid-on loss is steam too.
@@ -59,6 +60,11 @@ export const CHARGE_EVENT_REARM = 0.02;
 export const BELOW_USEFUL_REARM_K = 1;
 /** Natural-convection coupling is re-evaluated when the store or pot temperature has moved by more than this [K]. */
 export const COUPLING_UPDATE_K = 0.25;
+/**
+ * Inside a phase-change store's melting range the coupling follows the melt fraction (./convection.ts), which changes
+ * by 1 % per 0.02 K of a 2 K range: the store side is re-evaluated after a move of this much there [K].
+ */
+export const MUSHY_COUPLING_UPDATE_K = 0.02;
 /** Inter-layer conductance re-evaluated when the store mean temperature has moved by more than this [K]. */
 const MIXING_UPDATE_K = 1;
 
@@ -631,11 +637,12 @@ class CookerSimulation {
     }
   }
 
-  /** Store-to-pot conductance [W/K]: constant, or natural convection re-evaluated after a > 0.25 K move. */
+  /** Store-to-pot conductance [W/K]: constant, or natural convection re-evaluated after a > 0.25 K move (0.02 K for the store inside its melting range). */
   private coupling(p: number, ts: number, tp: number): number {
     const c = this.potConstUA[p]!;
     if (c === c) return c; // not NaN → constant
-    if (this.potGValid[p] === 1 && Math.abs(ts - this.potGTs[p]!) <= COUPLING_UPDATE_K && Math.abs(tp - this.potGTp[p]!) <= COUPLING_UPDATE_K) {
+    const storeTol = this.hasMelt && ts >= this.solidusC && ts < this.liquidusC ? MUSHY_COUPLING_UPDATE_K : COUPLING_UPDATE_K;
+    if (this.potGValid[p] === 1 && Math.abs(ts - this.potGTs[p]!) <= storeTol && Math.abs(tp - this.potGTp[p]!) <= COUPLING_UPDATE_K) {
       return this.potG[p]!;
     }
     const ua = this.potNc[p]!(ts, tp);

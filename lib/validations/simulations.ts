@@ -104,6 +104,8 @@ export const simulationSchema = z
     }
     if (v.cooker && v.cooker.minUsefulTempC >= v.cooker.maxSafeTempC - 5)
       ctx.addIssue({ code: 'custom', path: ['cooker', 'minUsefulTempC'], message: 'Must be at least 5 °C below the highest safe temperature.' });
+    if (v.cooker?.mediumId === 'custom' && !v.cooker.customMediumId)
+      ctx.addIssue({ code: 'custom', path: ['cooker', 'customMediumId'], message: 'Choose the custom medium (customMediumId), or a built-in one.' });
   });
 
 export type SimulationInput = z.infer<typeof simulationSchema>;

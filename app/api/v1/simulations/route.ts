@@ -1,8 +1,8 @@
 import type { NextRequest } from 'next/server';
 import { json, parseJson, route } from '@/lib/http/handler';
 import { requireKitchen, requireViewer } from '@/lib/auth/guard';
-import { CookerSchema } from '@/entities';
-import { notFound } from '@/lib/http/errors';
+import { CookerSchema, StorageMediumSchema } from '@/entities';
+import { notFound, unprocessable } from '@/lib/http/errors';
 import { simulationSchema } from '@/lib/validations/simulations';
 import { runSimulationRequest } from '@/lib/prediction/simulate-request';
 
@@ -18,5 +18,13 @@ export const POST = route(async (req: NextRequest) => {
     });
     return json(runSimulationRequest(input, { cooker, kitchen: access.kitchen }));
   }
-  return json(runSimulationRequest(input));
+  let custom = null;
+  if (input.cooker?.mediumId === 'custom') {
+    // Custom media are shared across an organisation: any organisation the viewer belongs to may lend one.
+    const orgIds = [...new Set(viewer.memberships.map((m) => m.organisation.id))];
+    const id = input.cooker.customMediumId!;
+    custom = orgIds.length > 0 ? await viewer.em.findOne(StorageMediumSchema, { id, organisation: { $in: orgIds } }) : null;
+    if (!custom) throw unprocessable('Choose a custom medium of your organisation.', { 'cooker.customMediumId': 'Unknown custom medium.' });
+  }
+  return json(runSimulationRequest(input, undefined, custom));
 });
