@@ -16,7 +16,7 @@ describe('the Today page message formatter', () => {
   });
 
   it('formats every Today and safety message of both languages without leaving a brace behind', () => {
-    const names = 'date version time count message temp store pot dish index of servings duration unit min max cooker smoke fuel amount minTemp serveBy who storeC smokeC meltC meltLowC meltHighC maxSafeC peakC coreC holdC';
+    const names = 'date version time count message temp store pot dish index of servings duration unit min max cooker smoke fuel amount minTemp serveBy who storeC smokeC meltC meltLowC meltHighC maxSafeC peakC coreC holdC sun backup ready';
     const params = Object.fromEntries(names.split(' ').map((n) => [n, n === 'count' ? 2 : 'x']));
     for (const messages of [en, fr]) {
       for (const ns of ['today', 'safety'] as const) {
