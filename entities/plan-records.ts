@@ -122,24 +122,22 @@ export type PlanCookerView = z.infer<typeof planCookerSchema>;
 export class PlanRecordError extends Error {
   constructor(column: string, issues: z.core.$ZodIssue[]) {
     const first = issues[0];
-    super(`The stored plan's ${column} do not match their schema${first ? ` (${first.path.join('.') || 'top level'}: ${first.message})` : ''}.`);
+    super(`The stored plan's ${column} does not match its schema${first ? ` (${first.path.join('.') || 'top level'}: ${first.message})` : ''}.`);
     this.name = 'PlanRecordError';
   }
 }
 
-/** A JSON column whose value is parsed with a zod schema when it is read. */
-export class PlanRecordType<T> extends JsonType {
-  constructor(
-    private readonly schema: z.ZodType<T>,
-    private readonly column: string,
-  ) {
-    super();
-  }
-
-  override convertToJSValue(value: unknown, platform: Platform, context?: TransformContext): T {
-    const raw = super.convertToJSValue(value, platform, context);
-    const r = this.schema.safeParse(raw);
-    if (!r.success) throw new PlanRecordError(this.column, r.error.issues);
-    return r.data;
-  }
+/**
+ * The type of a JSON column whose value is parsed with a zod schema when it is read. A class of its
+ * own per column, with no constructor arguments: the ORM makes its own instances of a property's type.
+ */
+export function planRecordType<T>(schema: z.ZodType<T>, column: string) {
+  return class PlanRecordType extends JsonType {
+    override convertToJSValue(value: unknown, platform: Platform, context?: TransformContext): T {
+      const raw = super.convertToJSValue(value, platform, context);
+      const r = schema.safeParse(raw);
+      if (!r.success) throw new PlanRecordError(column, r.error.issues);
+      return r.data;
+    }
+  };
 }

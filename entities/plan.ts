@@ -2,7 +2,7 @@ import { EntitySchema } from '@mikro-orm/core';
 import { baseProperties, type Base } from './base';
 import type { Kitchen } from './kitchen';
 import type { User } from './user';
-import { planCookerSchema, planFuelSchema, PlanRecordType, storedBatchSchema, storedResultSchema, type PlanCookerView, type PlanFuelView, type StoredBatch, type StoredResult } from './plan-records';
+import { planCookerSchema, planFuelSchema, planRecordType, storedBatchSchema, storedResultSchema, type PlanCookerView, type PlanFuelView, type StoredBatch, type StoredResult } from './plan-records';
 
 export const PLAN_STATUSES = ['draft', 'published', 'superseded'] as const;
 export type PlanStatus = (typeof PLAN_STATUSES)[number];
@@ -46,10 +46,10 @@ export const PlanSchema = new EntitySchema<Plan>({
     publishedBy: { kind: 'm:1', entity: 'User', nullable: true, deleteRule: 'set null' },
     weatherSource: { type: 'string', length: 32 },
     // JSON columns parsed with their schema when read (entities/plan-records.ts).
-    batches: { type: new PlanRecordType(storedBatchSchema.array(), 'batches') },
-    result: { type: new PlanRecordType(storedResultSchema, 'result') },
-    fuel: { type: new PlanRecordType(planFuelSchema, 'fuel') },
-    cookers: { type: new PlanRecordType(planCookerSchema.array(), 'cookers') },
+    batches: { type: planRecordType(storedBatchSchema.array(), 'batches') },
+    result: { type: planRecordType(storedResultSchema, 'result') },
+    fuel: { type: planRecordType(planFuelSchema, 'fuel') },
+    cookers: { type: planRecordType(planCookerSchema.array(), 'cookers') },
   },
   indexes: [{ properties: ['kitchen', 'date', 'status'] }],
 });

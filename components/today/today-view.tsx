@@ -261,7 +261,7 @@ function CookerSection({ cooker, outbox, nowMs, timeZone, canLog, clock, onCheck
         <p className="text-base">
           {cooker.mediumName && `${cooker.mediumName} · `}
           <span className="font-semibold">
-            {cooker.repredictedFromMs !== null ? t('storeNowSteered', { temp: fmtTemp(cooker.storeNowC), time: clock(r?.atMs ?? cooker.repredictedFromMs) }) : t('storeNow', { temp: fmtTemp(cooker.storeNowC) })}
+            {cooker.repredictedFromMs !== null ? t('storeNowRepredicted', { temp: fmtTemp(cooker.storeNowC), time: clock(r?.atMs ?? cooker.repredictedFromMs) }) : t('storeNow', { temp: fmtTemp(cooker.storeNowC) })}
           </span>
         </p>
         {r && <p className="text-sm text-clay-700">{t('lastReading', { time: clock(r.atMs), store: fmtTemp(r.storeC), pot: fmtTemp(r.potC) })}</p>}

@@ -16,7 +16,7 @@
  *   Colley 2008 / Stanciu, Grasas y Aceites; mixed certainty) and 3.0 mPa·s at 180 °C (chosen inside the 2.6–192.6
  *   mPa·s span that Stanciu reports for 13 oils over 278–453 K); level A per oil set by its kinematic viscosity at
  *   38 °C (Demirbas 2003, Energy Convers. Manage. 44:2093, table of oil properties; from memory).
- * - smoke point: lower end of the handbook ranges in REFERENCES.md (refined oils; secondary); flash points from memory.
+ * - smoke point: lower end of the handbook ranges in lib/REFERENCES.md (refined oils; secondary); flash points from memory.
  * - recommendedMaxC = smoke point − 30 K (common practice, no source: a margin for hot spots at the absorber and
  *   for the smoke point falling as the oil ages and its free fatty acids rise).
  */
@@ -59,7 +59,7 @@ export function fitVogelFulcherTammann(
 
 /**
  * Viscosity shape shared by the oils: through 50 mPa·s at 25 °C, 7 mPa·s at 100 °C (Fasina & Colley 2008 /
- * Stanciu; REFERENCES.md "mixed") and 3.0 mPa·s at 180 °C (inside Stanciu's 2.6–192.6 mPa·s span at 278–453 K).
+ * Stanciu; lib/REFERENCES.md "mixed") and 3.0 mPa·s at 180 °C (inside Stanciu's 2.6–192.6 mPa·s span at 278–453 K).
  */
 export const OIL_VISCOSITY_SHAPE = fitVogelFulcherTammann([
   [25, 0.05],
@@ -163,7 +163,7 @@ export const sunflowerOil: StorageMedium = createVegetableOil({
   densityRefTempC: 20,
   kinematicViscosity38Mm2PerS: 33.9, // Demirbas 2003 (from memory)
   smokePointC: 227, // refined 227–254 °C (handbook tables, secondary); unrefined ≈ 107 °C
-  flashPointC: 316, // ≈ 316 °C (REFERENCES.md: memory)
+  flashPointC: 316, // ≈ 316 °C (lib/REFERENCES.md: memory)
   validRangeC: { min: 20, max: 180 },
   sources: [...COMMON_OIL_SOURCES, 'Codex Stan 210-1999: sunflower relative density 0.918–0.923 at 20 °C'],
   notes: [...COMMON_OIL_NOTES, 'Unrefined sunflower oil smokes at ≈ 107 °C: use refined oil in a store.'],

@@ -143,7 +143,7 @@ export const erythritol: StorageMedium = createPhaseChangeMaterial({
   kLiquid: lin(140, 0.326),
   // ≈ 28.6 mPa·s at 140 °C (from memory, uncertain); held constant (no source for its temperature dependence).
   viscosityLiquid: () => 0.0286,
-  // Degrades with long cycling above 180 °C (REFERENCES.md, secondary); 20 K margin (common practice, no source).
+  // Degrades with long cycling above 180 °C (lib/REFERENCES.md, secondary); 20 K margin (common practice, no source).
   recommendedMaxC: 160,
   validRangeC: { min: 20, max: 180 },
   sources: [
@@ -269,7 +269,7 @@ export const solarSalt: StorageMedium = createPhaseChangeMaterial({
   // Melts from ≈ 220 °C; 60:40 is off-eutectic so it melts over a range, liquidus ≈ 240 °C (from memory).
   solidusC: 220,
   liquidusC: 240,
-  latentJPerKg: 110e3, // ≈ 110 kJ/kg (REFERENCES.md: memory)
+  latentJPerKg: 110e3, // ≈ 110 kJ/kg (lib/REFERENCES.md: memory)
   cpSolid: lin(240, 1443 + 0.172 * 240), // assumed equal to the liquid value at the liquidus (no source)
   cpLiquid: lin(0, 1443, 0.172), // Zavoico 2001 (from memory)
   densitySolid: lin(20, 2190), // mass-weighted NaNO₃ 2260 / KNO₃ 2110 kg/m³ (from memory)

@@ -23,7 +23,8 @@ const slot = z.object({
   plannedReadyMs: z.number(),
   readySource: z.enum(['plan', 'reading']),
   minTempC: z.number().describe('[°C]'),
-  status: z.enum(['planned', 'started', 'done', 'skipped']),
+  status: z.enum(['planned', 'started', 'done', 'skipped']).describe("the cooks' marks"),
+  state: z.enum(['planned', 'due', 'late', 'missed', 'cooking', 'ready', 'done', 'skipped']).describe('where the slot stands at serverNowMs'),
   safety: z.array(z.object({ code: z.string(), level: z.enum(['danger', 'warning', 'info']), params: z.record(z.string(), z.union([z.string(), z.number()])).optional() })),
 });
 const today = z.object({
@@ -31,15 +32,17 @@ const today = z.object({
   date: z.string().describe('kitchen-local date'),
   serverNowMs: z.number(),
   plan: z.object({ id: z.uuid(), version: z.number(), publishedAt: z.string().nullable() }).nullable().describe('null when no plan is published today'),
-  cookers: z.array(z.object({ id: z.uuid(), name: z.string(), storeNowC: z.number().nullable(), steeredFromMs: z.number().nullable(), slots: z.array(slot) })),
+  cookers: z.array(z.object({ id: z.uuid(), name: z.string(), storeNowC: z.number().nullable(), repredictedFromMs: z.number().nullable().describe('when the re-prediction from the latest reading starts; null: the plan’s prediction'), slots: z.array(slot) })),
   backup: z.array(z.object({ batchId: z.string(), reason: z.string(), fuelId: z.string().nullable(), amount: z.number().nullable(), unit: z.string().nullable() })),
-  warnings: z.array(z.object({ kind: z.enum(['store-low', 'smoke-point']), cookerId: z.uuid() })),
+  warnings: z.array(z.object({ kind: z.enum(['store-low', 'smoke-point', 'ready-after-serve-by']), cookerId: z.uuid() })),
+  servings: z.object({ total: z.number(), onSun: z.number(), backup: z.number() }),
+  tomorrow: z.object({ date: z.string(), servings: z.object({ total: z.number(), onSun: z.number(), backup: z.number() }) }).nullable().describe("tomorrow's published plan (same shape as today's cookers and backup), or null"),
   vapidPublicKey: z.string().describe('applicationServerKey for PushManager.subscribe'),
 });
 
 /** The cooks' day: today's slots, check-ins, readings (manual and from sensors), sensor keys and push subscriptions. */
 export const cooksOperations: Operation[] = [
-  { method: 'get', path: '/api/v1/kitchens/{kitchenId}/today', summary: "Today's published plan for cooks (kitchen-local date), steered by the latest readings, with safety notes on every slot", tag: 'cooks', roles: ALL, response: today },
+  { method: 'get', path: '/api/v1/kitchens/{kitchenId}/today', summary: "Today's published plan for cooks (kitchen-local date): each slot's state, ready times re-predicted from the latest readings, safety notes; and tomorrow's published plan", tag: 'cooks', roles: ALL, response: today },
   { method: 'post', path: '/api/v1/kitchens/{kitchenId}/check-ins', summary: 'A batch started, done or skipped (201; the same idempotency key again → 200 with the first answer)', tag: 'cooks', roles: LOGGERS, body: checkInSchema, response: checkIn, successStatus: 201, errors: [409] },
   { method: 'post', path: '/api/v1/kitchens/{kitchenId}/readings', summary: 'A thermometer reading typed by a cook, in °C (201; the same idempotency key again → 200)', tag: 'cooks', roles: LOGGERS, body: manualReadingSchema, response: reading, successStatus: 201, errors: [409] },
   { method: 'get', path: '/api/v1/kitchens/{kitchenId}/cookers/{cookerId}/readings', summary: "A cooker's readings of a local day (today by default)", tag: 'cooks', roles: ALL, query: readingsQuery, response: z.object({ date: z.string(), cookerId: z.uuid(), readings: z.array(reading) }) },

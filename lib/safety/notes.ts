@@ -6,7 +6,7 @@
  *
  * Sources of the rules:
  * - Burn first aid: cool running water for 20 minutes; no ice, butter or creams (burns first-aid
- *   guidance of national burn associations; REFERENCES.md, secondary).
+ *   guidance of national burn associations; lib/REFERENCES.md, secondary).
  * - Oil fire: never water; turn off the heat if safe, do not move the pot, cover with a lid or fire
  *   blanket (fire-service guidance); extinguisher Class K (NFPA 10) / Class F (EN 2, ISO 3941).
  * - Safe core temperatures (USDA FSIS chart, FoodSafety.gov): poultry 74 °C, ground meat and eggs

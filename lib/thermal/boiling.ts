@@ -4,7 +4,7 @@
  * Method: ISA troposphere pressure (ISO 2533:1975) p = 101325·(1 − 2.25577e-5·h)^5.25588 [Pa], then the Antoine
  * equation for water log10(p/mmHg) = A − B/(C + T/°C) with A = 8.07131, B = 1730.63, C = 233.426 (valid 1–100 °C;
  * widely tabulated, e.g. Lange's Handbook of Chemistry; read in a secondary table), solved for T in closed form.
- * Together they reproduce standard steam tables within ≈ 0.3 °C (REFERENCES.md, secondary). Weather-driven
+ * Together they reproduce standard steam tables within ≈ 0.3 °C (lib/REFERENCES.md, secondary). Weather-driven
  * pressure changes (± ≈ 1 kPa, ± ≈ 0.3 K) are ignored.
  */
 

@@ -135,7 +135,7 @@ describe('POST /api/v1/kitchens/{kitchenId}/check-ins', () => {
 describe('POST /api/v1/kitchens/{kitchenId}/readings (typed by a cook)', () => {
   const url = () => `/api/v1/kitchens/${w.kitchenA.id}/readings`;
 
-  it('records once per key and steers the cooker’s prediction from the measured store', async () => {
+  it('records once per key and re-predicts the cooker’s day from the measured store', async () => {
     const body = { idempotencyKey: randomUUID(), cookerId, storeC: 150.5, potC: 60, potId: 'p1', at: new Date(Date.now() - 60_000).toISOString() };
     const first = await cook.post(url(), body);
     expect(first.status).toBe(201);
@@ -145,7 +145,7 @@ describe('POST /api/v1/kitchens/{kitchenId}/readings (typed by a cook)', () => {
     const today = await cook.get(`/api/v1/kitchens/${w.kitchenA.id}/today`);
     const c = today.json.cookers.find((x: { id: string }) => x.id === cookerId);
     expect(c.latestReading).toMatchObject({ storeC: 150.5, potC: 60, source: 'manual' });
-    expect(c.steeredFromMs).toEqual(expect.any(Number));
+    expect(c.repredictedFromMs).toEqual(expect.any(Number));
   });
 
   it('refuses out-of-range values, no value, an unknown pot (422 naming the field) and another kitchen’s cooker (404)', async () => {

@@ -183,11 +183,15 @@ describe('plans', () => {
       expect(ck.series.t).toHaveLength(145);
       expect(ck.series.t[0]).toBe(Date.parse(`${DAY}T00:00:00Z`));
     }
-    // The day's plans as the kitchen sees them.
-    const day = await c.cookA!.get(`${plans()}?date=${DAY}`);
+    // The day's plans as the kitchen sees them: the lead sees the draft; cooks work from published plans only.
+    const day = await c.leadA!.get(`${plans()}?date=${DAY}`);
     expect(day.status).toBe(200);
     expect(day.json.draft.id).toBe(draft.id);
     expect(day.json.published).toBeNull();
+    const cooks = await c.cookA!.get(`${plans()}?date=${DAY}`);
+    expect(cooks.status).toBe(200);
+    expect(cooks.json.draft).toBeNull();
+    expect((await c.cookA!.get(`${plans()}/${draft.id}`)).status).toBe(404);
   });
 
   it('is deterministic: the same day solved again (to optimal) gives the same slots', async () => {

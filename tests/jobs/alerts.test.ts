@@ -101,11 +101,11 @@ describe('ready alerts', () => {
     const r = await recordManualReading(await cookAccess(), { idempotencyKey: randomUUID(), cookerId, at: new Date(nowMs).toISOString(), storeC: predicted - 20 }, nowMs);
     expect(r.status).toBe(201);
     const view = await getTodayPage(await em(), (await cookAccess()).kitchen, 'cook', nowMs);
-    const steered = new Map(view.cookers.flatMap((c) => c.slots).map((s) => [s.batchId, s]));
+    const repredicted = new Map(view.cookers.flatMap((c) => c.slots).map((s) => [s.batchId, s]));
     const after = await alertsOf();
     let moved = 0;
     for (const old of later) {
-      const s = steered.get(old.batchId!)!;
+      const s = repredicted.get(old.batchId!)!;
       expect(s.readySource).toBe('reading');
       const now = after.find((a) => a.id === old.id)!;
       if (s.readyMs === null) {

@@ -77,7 +77,7 @@ describe('repredictFromReading', () => {
     const planned = input.slots[0]!.readyMs;
     expect(hot.slots.rice!.readyMs!).toBeLessThan(planned);
     expect(cold.slots.rice!.readyMs === null || cold.slots.rice!.readyMs > planned).toBe(true);
-    // The steered store starts at the measured value.
+    // The re-predicted store starts at the measured value.
     expect(hot.series.storeTempC[0]).toBeCloseTo(predicted + 25, 6);
   });
 

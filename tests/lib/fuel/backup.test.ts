@@ -40,7 +40,7 @@ describe('boiling point', () => {
     expect(Math.abs(boilingPointAtAltitude(0) - 100)).toBeLessThan(0.1);
     // steam tables: Tsat(84.6 kPa) ≈ 95.0–95.1 °C (secondary)
     expect(Math.abs(boilingPointAtAltitude(1500) - 95.05)).toBeLessThan(0.3);
-    // about 1 °C per 300 m (REFERENCES.md, secondary)
+    // about 1 °C per 300 m (lib/REFERENCES.md, secondary)
     const slopeKPer300m = ((boilingPointAtAltitude(0) - boilingPointAtAltitude(3000)) / 3000) * 300;
     expect(slopeKPer300m).toBeGreaterThan(0.9);
     expect(slopeKPer300m).toBeLessThan(1.1);

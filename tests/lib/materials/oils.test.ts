@@ -97,7 +97,7 @@ describe('all five oils', () => {
     expect(oil.smokePointC).toBeDefined();
     expect(oil.recommendedMaxC).toBeLessThan(oil.smokePointC!);
     expect(oil.flashPointC!).toBeGreaterThan(oil.smokePointC!);
-    // Smoke points within the handbook ranges of REFERENCES.md (secondary): 204–254 °C for refined oils.
+    // Smoke points within the handbook ranges of lib/REFERENCES.md (secondary): 204–254 °C for refined oils.
     expect(oil.smokePointC!).toBeGreaterThanOrEqual(204);
     expect(oil.smokePointC!).toBeLessThanOrEqual(254);
     expect(oil.kind).toBe('oil');

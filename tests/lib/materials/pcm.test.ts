@@ -22,7 +22,7 @@ describe('phase-change materials', () => {
       expect(Math.abs((m.solidusC + m.liquidusC) / 2 - tMelt)).toBeLessThanOrEqual(10); // solar salt melts over 220–240 °C
       expect(m.latentJPerKg).toBeCloseTo(latent, -3);
     }
-    expect(solarSalt.melting!.solidusC).toBe(220); // ≈ 220 °C (REFERENCES.md, memory)
+    expect(solarSalt.melting!.solidusC).toBe(220); // ≈ 220 °C (lib/REFERENCES.md, memory)
     expect(magnesiumChlorideHexahydrate.supercoolingK).toBe(37); // Pilar et al. 2012 abstract
   });
 

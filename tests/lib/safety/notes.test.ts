@@ -21,7 +21,7 @@ describe('safety notes for a slot', () => {
   });
 
   it('an oil store near its smoke point warns first, with the temperatures', () => {
-    // Refined sunflower oil smoke point 227 °C (handbook tables, REFERENCES.md, secondary).
+    // Refined sunflower oil smoke point 227 °C (handbook tables, lib/REFERENCES.md, secondary).
     const n = safetyNotesForSlot({ method: 'boil', mediumKind: 'oil', smokePointC: 227, predictedStoreMaxC: 205, safeCoreTempC: 74 });
     expect(n[0]).toEqual({ code: 'smoke-point', level: 'danger', params: { storeC: 205, smokeC: 227 } });
     const cool = safetyNotesForSlot({ method: 'boil', mediumKind: 'oil', smokePointC: 227, predictedStoreMaxC: 150, safeCoreTempC: 74 });

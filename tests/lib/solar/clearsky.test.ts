@@ -30,7 +30,7 @@ describe('clearSkyHaurwitz1945', () => {
 });
 
 describe('clearSkyIneichenPerez2002', () => {
-  // Ineichen & Perez 2002, Solar Energy 73(3):151–157 (formula as in REFERENCES.md), with Kasten & Young 1989
+  // Ineichen & Perez 2002, Solar Energy 73(3):151–157 (formula as in lib/REFERENCES.md), with Kasten & Young 1989
   // relative air mass, evaluated independently here.
   const ip = (z: number, h: number, tl: number, i0: number) => {
     const am = 1 / (Math.cos(z * D) + 0.50572 * (96.07995 - z) ** -1.6364);

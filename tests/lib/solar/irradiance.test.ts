@@ -61,7 +61,7 @@ describe('extraterrestrial irradiance', () => {
 });
 
 describe('diffuseFractionErbs1982', () => {
-  // Erbs, Klein & Duffie 1982, Solar Energy 28(4):293–302, eq. 1 (coefficients as in REFERENCES.md).
+  // Erbs, Klein & Duffie 1982, Solar Energy 28(4):293–302, eq. 1 (coefficients as in lib/REFERENCES.md).
   const poly = (kt: number, c4: number) => 0.9511 - 0.1604 * kt + 4.388 * kt ** 2 - 16.638 * kt ** 3 + c4 * kt ** 4;
 
   it('low branch kt ≤ 0.22: 1 − 0.09·kt', () => {

@@ -48,7 +48,7 @@ describe('solarPositionSpa — worked example (Reda & Andreas 2004, Table A5.1)'
   const r = solarPositionSpa(EXAMPLE);
 
   it('Julian day 2452930.312847 (eq. 4 and from epoch ms)', () => {
-    // Reda & Andreas 2004, Table A5.1: JD = 2452930.312847 (primary, REFERENCES.md).
+    // Reda & Andreas 2004, Table A5.1: JD = 2452930.312847 (primary, lib/REFERENCES.md).
     expect(Math.abs(r.julianDay - 2452930.312847)).toBeLessThan(5e-7);
     expect(Math.abs(julianDaySpa(2003, 10, 17, 12, 30, 30, -7) - 2452930.312847)).toBeLessThan(5e-7);
     expect(Math.abs(julianDayFromMs(EXAMPLE.timeMs) - julianDaySpa(2003, 10, 17, 12, 30, 30, -7))).toBeLessThan(1e-8);
@@ -79,7 +79,7 @@ describe('solarPositionSpa — worked example (Reda & Andreas 2004, Table A5.1)'
   });
 
   it('topocentric zenith 50.111622°, azimuth 194.340241°, incidence 25.187000°', () => {
-    // Reda & Andreas 2004, Table A5.x (primary, REFERENCES.md), printed to 1e-6°.
+    // Reda & Andreas 2004, Table A5.x (primary, lib/REFERENCES.md), printed to 1e-6°.
     expect(Math.abs(r.zenithDeg - 50.111622)).toBeLessThan(1e-6);
     expect(Math.abs(r.azimuthDeg - 194.340241)).toBeLessThan(1e-6);
     expect(Math.abs(r.incidenceDeg - 25.187)).toBeLessThan(1e-6);

@@ -20,7 +20,7 @@ describe('boiling point of water vs altitude (ISA + Antoine)', () => {
     expect(Math.abs(waterBoilingPointAntoineC(70_183) - 90)).toBeLessThanOrEqual(0.3);
   });
 
-  it('falls about 1 °C per ≈ 300 m (REFERENCES.md, secondary): 0.9–1.2 K per 300 m up to 3000 m', () => {
+  it('falls about 1 °C per ≈ 300 m (lib/REFERENCES.md, secondary): 0.9–1.2 K per 300 m up to 3000 m', () => {
     const perThreeHundred = ((boilingPointAtAltitudeC(0) - boilingPointAtAltitudeC(3000)) / 3000) * 300;
     expect(perThreeHundred).toBeGreaterThan(0.9);
     expect(perThreeHundred).toBeLessThan(1.2);
