@@ -162,7 +162,7 @@ export async function planDay(problem: PlannerProblem, deps: PlannerDeps = {}): 
   const checked = recheckPlan(m, run.st, finalEvals, relax, screens, run.rng, failedFixed, say);
 
   // 7. Result.
-  const backup = backupReasons(m, relax, finalEvals, checked.plan, checked.failed);
+  const backup = backupReasons(m, relax, finalEvals, screens, checked.plan, checked.failed);
   const result = resultOf(m, checked.plan, backup, boundRes, { greedyServings, iterations: search.iterations, masterRuns: master.runs, stopReason }, say);
   if (recycleHighsIfLarge(highs)) say('HiGHS heap above its limit: the next plan loads a fresh instance');
   say(`final: ${result.servingsOnSun} servings, bound ${result.upperBound}, gap ${(result.gap * 100).toFixed(2)} %, ${stats.sims} simulations (${stats.simSteps} steps), ${backup.length} backup`);
