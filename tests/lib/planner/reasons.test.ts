@@ -8,6 +8,11 @@ import { planDay, warmPlanner } from '@/lib/planner';
 import type { BackupBatch, PlannerBatch, PlannerProblem, PlannerResult } from '@/lib/planner/types';
 import { at, batchOf, cookerSpec, DAY0, DISHES, makeCooker, makeInstance, makeSmall, makeWeather, pot } from './fixtures';
 import { simulateCookerLoads, type OracleLoad } from './oracle';
+import { buildModel, CookerEvaluator } from '@/lib/planner/model';
+import { buildRelaxation } from '@/lib/planner/relaxation';
+import { backupReasons } from '@/lib/planner/report';
+import { PotScreen } from '@/lib/planner/screen';
+import { simulateCooker } from '@/lib/thermal';
 
 const stew = DISHES[1] as (typeof DISHES)[number];
 const veg = DISHES[3] as (typeof DISHES)[number];
@@ -218,6 +223,24 @@ describe('backup reasons hold for the final plan', () => {
       for (const bk of r.backup) expect(claimProblems(p, r, bk)).toEqual([]);
     }, 60_000);
   }
+});
+
+describe('a place the search did not find', () => {
+  it('next to an empty plan every batch possible alone is "not-placed", at a start the oracle confirms', () => {
+    const p = makeSmall(4, 5);
+    const m = buildModel(p);
+    const stats = { sims: 0, simSteps: 0, cacheHits: 0 };
+    const evals = m.cookers.map((c) => new CookerEvaluator(m, c, simulateCooker, stats));
+    for (const e of evals) e.storeAt(e.noLoad(), e.c.n);
+    const screens = m.cookers.map((c) => new PotScreen(m, c));
+    const relax = buildRelaxation(m, evals, screens);
+    const empty = { evs: evals.map((e) => e.noLoad()) };
+    const backup = backupReasons(m, relax, evals, screens, empty, new Map());
+    expect(backup).toHaveLength(p.batches.length);
+    const r: PlannerResult = { status: 'converged', slots: [], backup, servingsOnSun: 0, objective: 0, upperBound: 0, boundMethod: '', gap: 0, solveTimeMs: 0, greedyServings: 0, iterations: 0, log: [] };
+    expect(backup.filter((x) => x.reason === 'not-placed').length).toBeGreaterThan(0);
+    for (const bk of backup) expect(claimProblems(p, r, bk)).toEqual([]);
+  });
 });
 
 describe('a dish whose minimum is above the local boiling point', () => {
