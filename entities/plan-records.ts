@@ -10,7 +10,7 @@ import { z } from 'zod';
 
 const COOK_METHODS = ['boil', 'simmer', 'steam', 'bake', 'fry'] as const;
 /** The planner's reasons, and 'too-late': solved the same day after the batch could still be cooked in time. */
-const BACKUP_REASONS = ['no-cooker-hot-enough', 'no-free-pot', 'outside-shift', 'pot-too-small', 'failed-recheck', 'too-late'] as const;
+const BACKUP_REASONS = ['no-cooker-hot-enough', 'no-free-pot', 'outside-shift', 'pot-too-small', 'failed-recheck', 'above-boiling-point', 'not-placed', 'too-late'] as const;
 const MEDIUM_KINDS = ['oil', 'pcm', 'custom'] as const;
 
 /** One batch of a menu line as planned: what the dish needs, when, and which batch of its line it is. */

@@ -12,6 +12,9 @@
  *   warmest air to the dish minimum, water capped at boiling) and, per cooker, the store enthalpy
  *   H(T) = m·h(T) of its medium and the loss-free collector gain η0·A·∫G dt.
  *
+ * A batch with water whose minimum is above the boiling point at the kitchen's altitude
+ * (lib/thermal boilingPointAtAltitudeC) is possible nowhere ('above-boiling-point').
+ *
  * These feed the candidate filter of the search, the backup reasons and the upper bound (bound.ts).
  */
 import { boilingPointAtAltitudeC as boilingPointAtAltitude, WATER_CP_J_PER_KG_K } from '@/lib/thermal/boiling';
@@ -47,7 +50,7 @@ export class RangeMax {
   }
 }
 
-export type ImpossibleReason = 'pot-too-small' | 'outside-shift' | 'no-cooker-hot-enough';
+export type ImpossibleReason = 'pot-too-small' | 'outside-shift' | 'no-cooker-hot-enough' | 'above-boiling-point';
 
 export interface Relaxation {
   possible: boolean[][][];
@@ -183,11 +186,23 @@ export function buildRelaxation(m: PModel, evals: CookerEvaluator[], screens: Po
       db.push(dc);
       eb.push(ec);
     }
+    // A pot with water stays at the boiling point until the water is gone: a dish minimum above it
+    // is reached only by boiling the pot dry, so no pot is possible.
+    const aboveBoiling = r.waterKg > 0 && r.minTempC > tBoil && !b.fixed;
+    if (aboveBoiling) {
+      for (const pc of pb) pc.fill(false);
+      for (const dc of db) dc.fill(Infinity);
+    }
     possible.push(pb);
     dminMs.push(db);
     energyLowJ.push(eb);
     const some = pb.some((pc) => pc.some((x) => x));
-    if (some || (b.fixed && b.fixed.done)) impossible.push(null);
+    if (aboveBoiling) {
+      impossible.push({
+        reason: 'above-boiling-point',
+        detail: `this dish needs ${Math.round(r.minTempC)} °C, but water boils at ${tBoil.toFixed(1)} °C at this kitchen's altitude (${Math.round(m.problem.altitudeM)} m): a pot with water cannot reach the dish's minimum here`,
+      });
+    } else if (some || (b.fixed && b.fixed.done)) impossible.push(null);
     else if (!anyFit) {
       const largest = Math.max(0, ...m.cookers.flatMap((c) => c.pots.map((p) => p.volumeL)));
       impossible.push({

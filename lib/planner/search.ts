@@ -1,12 +1,13 @@
 /**
  * Placement heuristics on per-cooker sequences, every candidate checked by simulation:
  *
- * - greedy: batches by serve-by (then the most heat first), each at the earliest feasible
- *   (cooker, pot, grid start); only the cooker that receives it is re-simulated;
- * - insertion, swap (take one batch out, put a more valuable one in), shift (move a batch later so
- *   it waits less before serving);
- * - large-neighbourhood search: empty one or two cookers and re-pack them, together with the
- *   batches nobody serves, in a randomised order (a seeded generator, so runs repeat).
+ * - construction (greedy): batches by serve-by (then the most heat first), each at the feasible
+ *   (cooker, pot, grid start) forecast to finish first; only the cooker that receives it is
+ *   re-simulated (Search.greedy);
+ * - insertion (Search.tryInsert), the insertion every repair uses, and the passes: insertion, swap
+ *   (take one batch out, put a more valuable one in), shift (move a batch later so it waits less
+ *   before serving);
+ * - the large-neighbourhood moves built on them are in lns.ts, the kicks in ils.ts.
  *
  * Every feasible cooker sequence met on the way is kept as a column for the set-packing master
  * (master.ts), which recombines columns across cookers.
@@ -67,6 +68,14 @@ export function placedOf(m: PModel, s: State): Int32Array {
   });
   return where;
 }
+
+/**
+ * Randomised repair (noise in the insertion, as Ropke & Pisinger 2006 add noise to insertion costs;
+ * the rule here is a project choice): with a `pick` generator, the second best forecast is tried first
+ * when u < RANK_PICK_SECOND_BELOW, the third when u < RANK_PICK_THIRD_BELOW.
+ */
+export const RANK_PICK_SECOND_BELOW = 0.15;
+export const RANK_PICK_THIRD_BELOW = 0.22;
 
 interface Ranked {
   c: number;
@@ -199,12 +208,6 @@ export class Search {
     return undefined;
   }
 
-  /**
-   * Places batch b on one of `cookers`: candidate (cooker, pot, start) triples that pass the
-   * necessary tests are ranked by the pot screen's forecast completion time ('estimate' mode), and
-   * simulated best first until one works (earliest completion; ties: earlier start, smaller pot,
-   * then the order of `cookers`). Returns the new evaluation, or null.
-   */
   /** Candidate (cooker, pot, start) triples of batch b ranked by forecast completion. */
   rank(st: State, b: PBatch, cookers: readonly number[], pick?: () => number): Ranked[] {
     const ranked: Ranked[] = [];
@@ -246,12 +249,18 @@ export class Search {
     // Randomised repair: sometimes take the second or third best forecast first.
     if (pick && ranked.length > 1 && ranked[1]?.done !== Infinity) {
       const u = pick();
-      const j = u < 0.15 ? 1 : u < 0.22 && ranked.length > 2 && ranked[2]?.done !== Infinity ? 2 : 0;
+      const j = u < RANK_PICK_SECOND_BELOW ? 1 : u < RANK_PICK_THIRD_BELOW && ranked.length > 2 && ranked[2]?.done !== Infinity ? 2 : 0;
       if (j > 0) ranked.unshift(...ranked.splice(j, 1));
     }
     return ranked;
   }
 
+  /**
+   * Places batch b on one of `cookers`: candidate (cooker, pot, start) triples that pass the
+   * necessary tests are ranked by the pot screen's forecast completion time ('estimate' mode), and
+   * simulated best first until one works (earliest completion; ties: earlier start, smaller pot,
+   * then the order of `cookers`). Returns the new evaluation, or null.
+   */
   tryInsert(st: State, b: PBatch, cookers: readonly number[], maxEvals = 0, pick?: () => number): { c: number; ev: Evaluation } | null {
     // One-cooker repairs (no simulation of starts forecast to fail) remember where a batch did not
     // fit: the same simulated sequence (the same Evaluation, so the same store trajectory) gives the
@@ -345,7 +354,11 @@ export class Search {
     return e;
   }
 
-  /** Greedy placement of `order` into the state's cookers. */
+  /**
+   * Construction (greedy insertion): each batch of `order` in turn at its first feasible candidate
+   * (tryInsert) on `cookers`; a batch with none stays unplaced. Stops early only when time is up
+   * after the search has begun.
+   */
   greedy(st: State, order: readonly number[], cookers: readonly number[]): void {
     for (const bi of order) {
       if (this.timeUp() && this.iterations > 0) return;
@@ -355,6 +368,7 @@ export class Search {
     }
   }
 
+  /** The construction's order: earliest serve-by first, then the most heat, then the index. */
   greedyOrder(batches: readonly number[]): number[] {
     const bs = this.m.batches;
     return [...batches].sort((x, y) => {
@@ -389,66 +403,6 @@ export class Search {
       }
     }
     return improved;
-  }
-
-  /**
-   * Small destroy-and-repair: take up to `k` random batches out of each of `cookers`, then insert the
-   * removed and the unplaced batches (most valuable first, ties random) into those cookers. Cheaper
-   * than re-packing whole cookers, so many more of these fit in the time. Accepts improvements
-   * (and equal plans now and then, to move along plateaus).
-   */
-  lnsPartial(st: State, cookers: number[], k: number): boolean {
-    this.iterations++;
-    const m = this.m;
-    const bs = m.batches;
-    const trial: State = { evs: st.evs.slice() };
-    const pool = new Set<number>();
-    for (const c of cookers) {
-      const ev = st.evs[c] as Evaluation;
-      const movable = ev.loads.filter((l) => !(bs[l.b] as PBatch).fixed);
-      const out: Load[] = [];
-      for (let t = 0; t < k && movable.length > 0; t++) out.push(...movable.splice(Math.floor(this.rng() * movable.length), 1));
-      if (out.length === 0) continue;
-      const next = this.evaluate(c, ev.loads.filter((l) => !out.includes(l)), ev);
-      if (!next.ok) continue;
-      trial.evs[c] = next;
-      for (const l of out) pool.add(l.b);
-    }
-    for (const bi of this.unplaced(st)) if (cookers.some((c) => this.relax.possible[bi]?.[c]?.some((x) => x))) pool.add(bi);
-    const items = [...pool].sort((a, z) => a - z);
-    const noise = new Map(items.map((bi) => [bi, this.rng()]));
-    items.sort((a, z) => (bs[z] as PBatch).base * (0.85 + 0.3 * (noise.get(z) as number)) - (bs[a] as PBatch).base * (0.85 + 0.3 * (noise.get(a) as number)) || a - z);
-    return this.repairAndAccept(st, trial, cookers, items, cookers, this.rng);
-  }
-
-  /**
-   * Kick for an iterated local search: take a random share of the placed batches out and re-insert
-   * the unplaced batches in a random order. The result may be worse; the caller keeps the best.
-   */
-  perturb(st: State, share: number): void {
-    const m = this.m;
-    for (const pc of m.cookers) {
-      const ev = st.evs[pc.idx] as Evaluation;
-      const out = ev.loads.filter((l) => !(m.batches[l.b] as PBatch).fixed && this.rng() < share);
-      if (out.length === 0) continue;
-      const keep = ev.loads.filter((l) => !out.includes(l));
-      const next = this.evaluate(pc.idx, keep, ev);
-      if (next.ok) st.evs[pc.idx] = next;
-    }
-    const order = this.unplaced(st);
-    for (let i = order.length - 1; i > 0; i--) {
-      const j = Math.floor(this.rng() * (i + 1));
-      [order[i], order[j]] = [order[j] as number, order[i] as number];
-    }
-    const all = m.cookers.map((c) => c.idx);
-    for (const bi of order) {
-      if (this.timeUp()) return;
-      const r = this.tryInsert(st, m.batches[bi] as PBatch, all, 0, this.rng);
-      if (r) {
-        st.evs[r.c] = r.ev;
-        this.addColumn(r.c, r.ev);
-      }
-    }
   }
 
   /** Take a less valuable batch out of a cooker to let a more valuable unplaced one in. */
@@ -522,71 +476,5 @@ export class Search {
       }
     }
     return improved;
-  }
-
-  /**
-   * Destroy-and-repair one or two cookers: take their batches out and re-pack them together with
-   * the unplaced batches, in an order drawn from one of four rules. Accepts a result at least as
-   * good as before.
-   */
-  lns(st: State, cookers: number[]): boolean {
-    this.iterations++;
-    const m = this.m;
-    const pool = new Set<number>();
-    const trial: State = { evs: st.evs.slice() };
-    for (const c of cookers) {
-      const ev = st.evs[c] as Evaluation;
-      for (const l of ev.loads) if (!(m.batches[l.b] as PBatch).fixed) pool.add(l.b);
-      trial.evs[c] = this.fixedOnly[c] ?? (this.evals[c] as CookerEvaluator).evaluate((this.evals[c] as CookerEvaluator).fixedLoads());
-    }
-    for (const bi of this.unplaced(st)) if (cookers.some((c) => this.relax.possible[bi]?.[c]?.some((x) => x))) pool.add(bi);
-    const items = [...pool].sort((a, z) => a - z);
-    const rule = Math.floor(this.rng() * 4);
-    const bs = m.batches;
-    const noise = items.map(() => this.rng());
-    const key = new Map<number, number>();
-    items.forEach((bi, k) => {
-      const b = bs[bi] as PBatch;
-      const nz = noise[k] as number;
-      const eLow = Math.max(1, Math.min(...(this.relax.energyLowJ[bi]?.[cookers[0] as number] ?? [1])));
-      if (rule === 0) key.set(bi, b.serveBy + (nz - 0.5) * 2 * 3600_000);
-      else if (rule === 1) key.set(bi, -(b.base / eLow) * (0.8 + 0.4 * nz));
-      else if (rule === 2) key.set(bi, nz);
-      else key.set(bi, -b.base * (0.8 + 0.4 * nz));
-    });
-    items.sort((a, z) => (key.get(a) as number) - (key.get(z) as number) || a - z);
-    const order = cookers.length > 1 && this.rng() < 0.5 ? [...cookers].reverse() : cookers;
-    const randomPick = this.rng() < 0.5 ? this.rng : undefined;
-    return this.repairAndAccept(st, trial, cookers, items, order, randomPick);
-  }
-
-  /**
-   * The repair both destroy moves share: inserts `items` in that order into `trial` on `order`'s
-   * cookers, trusting the forecast (a start it expects to fail is not simulated); keeps the new
-   * sequences as columns; takes the trial into `st` when it is better, or now and then when equal (to
-   * move along plateaus). Batches taken out and not re-placed lose their value: the sums over
-   * `cookers` before and after account for it. True when `st` improved.
-   */
-  private repairAndAccept(st: State, trial: State, cookers: readonly number[], items: readonly number[], order: readonly number[], pick?: () => number): boolean {
-    const bs = this.m.batches;
-    const before = cookers.reduce((s, c) => s + (st.evs[c] as Evaluation).value, 0);
-    const keep = this.maxFailTries;
-    this.maxFailTries = 0;
-    try {
-      for (const bi of items) {
-        if (this.timeUp()) return false;
-        const r = this.tryInsert(trial, bs[bi] as PBatch, order, 0, pick);
-        if (r) trial.evs[r.c] = r.ev;
-      }
-    } finally {
-      this.maxFailTries = keep;
-    }
-    const after = cookers.reduce((s, c) => s + (trial.evs[c] as Evaluation).value, 0);
-    for (const c of cookers) this.addColumn(c, trial.evs[c] as Evaluation);
-    if (after > before + 1e-9 || (after > before - 1e-9 && this.rng() < 0.3)) {
-      for (const c of cookers) st.evs[c] = trial.evs[c] as Evaluation;
-      return after > before + 1e-9;
-    }
-    return false;
   }
 }

@@ -77,7 +77,12 @@ export interface PlannerProblem {
   timeZone?: string;
 }
 
-export type BackupReason = 'no-cooker-hot-enough' | 'no-free-pot' | 'outside-shift' | 'pot-too-small' | 'failed-recheck';
+/**
+ * Why a batch goes to backup fuel. 'above-boiling-point': the dish minimum is above the boiling point
+ * of water at the kitchen's altitude, so a pot with water cannot reach it; 'not-placed': a place
+ * exists next to the final plan but the search stopped before it found it.
+ */
+export type BackupReason = 'no-cooker-hot-enough' | 'no-free-pot' | 'outside-shift' | 'pot-too-small' | 'failed-recheck' | 'above-boiling-point' | 'not-placed';
 
 export interface PlannedSlot {
   batchId: string;

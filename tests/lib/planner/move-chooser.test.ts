@@ -1,9 +1,9 @@
 /**
- * The adaptive move choice of the local search (plan.ts MoveChooser, after Ropke & Pisinger 2006,
+ * The adaptive move choice of the local search (move-chooser.ts MoveChooser, after Ropke & Pisinger 2006,
  * Transportation Science 40(4):455–472, §3.4: weights follow each move's recent record).
  */
 import { describe, expect, it } from 'vitest';
-import { MoveChooser } from '@/lib/planner/plan';
+import { MoveChooser } from '@/lib/planner/move-chooser';
 import { mulberry32 } from '@/lib/random';
 
 function shares(ch: MoveChooser, n: number, draws: number): number[] {
