@@ -75,7 +75,7 @@ export function SlotCard({ slot, state, ownSafety, nowMs, timeZone, canLog, onCh
 
       {canLog && (
         <div className="mt-3 flex flex-wrap gap-2">
-          {slot.status === 'planned' && state !== 'missed' && (
+          {slot.status === 'planned' && (
             <button type="button" className="btn-primary min-h-14 flex-1 text-lg" onClick={() => onCheckIn('started')}>
               {t('markStarted')}
             </button>
@@ -135,6 +135,7 @@ export function SlotCard({ slot, state, ownSafety, nowMs, timeZone, canLog, onCh
         {slot.potMaxC != null && `, ${t('potMax', { temp: fmtTemp(slot.potMaxC) })}`} · {t('serveBy', { time: clock(slot.serveByMs) })}
       </p>
       <SafetyList notes={ownSafety} />
+      <p className="mt-1 text-sm text-clay-700">{t('safetyAbove')}</p>
     </article>
   );
 }

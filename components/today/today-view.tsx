@@ -267,10 +267,15 @@ function CookerSection({ cooker, outbox, nowMs, timeZone, canLog, clock, onCheck
         {r && <p className="text-sm text-clay-700">{t('lastReading', { time: clock(r.atMs), store: fmtTemp(r.storeC), pot: fmtTemp(r.potC) })}</p>}
       </div>
       {notes.shared.length > 0 && (
-        <details className="rounded-lg bg-white px-3 py-2">
-          <summary className="min-h-12 cursor-pointer content-center font-semibold">{t('safetyHere', { count: notes.shared.length })}</summary>
-          <SafetyList notes={notes.shared} />
-        </details>
+        <div className="rounded-lg bg-white px-3 py-2" data-testid="cooker-safety">
+          <h3 className="font-semibold">{t('safetyTitle')}</h3>
+          {/* The dangers stay in sight; the rest of this cooker's notes are one tap away. */}
+          <SafetyList notes={notes.shared.filter((n) => n.level === 'danger')} />
+          <details>
+            <summary className="min-h-12 cursor-pointer content-center font-semibold underline underline-offset-4">{t('safetyMore', { count: notes.shared.filter((n) => n.level !== 'danger').length })}</summary>
+            <SafetyList notes={notes.shared.filter((n) => n.level !== 'danger')} />
+          </details>
+        </div>
       )}
 
       {slots.length === 0 ? <p className="text-base text-clay-700">{t('noSlotsHere')}</p> : p.current.length === 0 && <p className="text-base text-clay-700">{t('nothingNow')}</p>}

@@ -56,13 +56,13 @@ const outboxSize = () =>
       }),
   );
 
-/** The first slot card that still has a "Started" button (the "now" or "next" one). */
-const firstOpenCard = () => page.locator('article[data-batch]').filter({ has: page.getByRole('button', { name: 'Started' }) }).first();
+/** The first slot card that still has a "Mark started" button (the "now" or "next" one). */
+const firstOpenCard = () => page.locator('article[data-batch]').filter({ has: page.getByRole('button', { name: 'Mark started' }) }).first();
 
 describe('Today page on a phone', () => {
   let batchId: string;
 
-  it('a cook signs in and lands on today’s slots, each with its safety notes on the card', async () => {
+  it('a cook signs in and lands on today’s slots: actions first, each safety note once where it applies', async () => {
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel('E-mail address').fill(w.emails.cookA);
     await page.getByLabel('Password').fill(PASSWORD);
@@ -75,22 +75,32 @@ describe('Today page on a phone', () => {
     const cards = page.locator('article[data-batch]');
     expect(await cards.count()).toBeGreaterThanOrEqual(3);
     await expect.poll(() => cards.first().getByRole('heading').textContent()).toMatch(/^(Maize porridge|Rice) · batch \d of \d$/);
-    // Every slot card carries its notes, down to the local-codes reminder; nothing to tap open.
+    // The cooker's own cautions are said once above its slots: the dangers in sight, the rest one tap away.
+    const safety = page.getByTestId('cooker-safety').first();
+    await expect.poll(() => safety.getByText(/Oil fire: never use water/).isVisible()).toBe(true);
+    expect(await safety.getByText('Follow your local codes and trained practice.').isVisible()).toBe(false);
+    await safety.locator('summary').click();
+    await expect.poll(() => safety.getByText('Follow your local codes and trained practice.').isVisible()).toBe(true);
+    // Each card points to them, says no shared note again, and shows its state.
     for (let i = 0; i < (await cards.count()); i++) {
       const card = cards.nth(i);
-      await expect.poll(() => card.getByText('Follow your local codes and trained practice.').isVisible()).toBe(true);
-      await expect.poll(() => card.getByText(/Oil fire: never use water/).isVisible()).toBe(true);
+      expect(await card.getByText("Also follow this cooker's safety notes above.").isVisible()).toBe(true);
+      expect(await card.getByText(/Oil fire: never use water/).count()).toBe(0);
+      expect(await card.getByTestId('slot-state').textContent()).toMatch(/^(Planned|Due now|Late|Missed|Cooking|Hot enough|Done|Skipped)$/);
     }
-    // Large touch targets (≥ 48 CSS px).
-    const box = await firstOpenCard().getByRole('button', { name: 'Started' }).boundingBox();
-    expect(box!.height).toBeGreaterThanOrEqual(48);
+    // The action comes before the card's details; large touch targets (≥ 48 CSS px).
+    const open = firstOpenCard();
+    const button = await open.getByRole('button', { name: 'Mark started' }).boundingBox();
+    const details = await open.getByText(/servings · Pot:/).boundingBox();
+    expect(button!.y).toBeLessThan(details!.y);
+    expect(button!.height).toBeGreaterThanOrEqual(48);
     await shot('today-cook-phone.png');
   });
 
   it('checks a batch in and logs a reading', async () => {
     const card = firstOpenCard();
     batchId = (await card.getAttribute('data-batch'))!;
-    await card.getByRole('button', { name: 'Started' }).click();
+    await card.getByRole('button', { name: 'Mark started' }).click();
     await page.getByText('Saved.', { exact: true }).waitFor();
     await expect.poll(() => page.locator(`article[data-batch="${batchId}"]`).getByText(/^Started at \d\d:\d\d/).isVisible()).toBe(true);
     expect(await count(CheckInSchema, { kitchen: w.kitchenA.id, batchId, kind: 'started' })).toBe(1);
@@ -126,10 +136,10 @@ describe('Today page on a phone', () => {
     await page.getByText(/^No connection: showing what this phone saved at \d\d:\d\d/).waitFor({ timeout: 15_000 });
     const card = page.locator(`article[data-batch="${batchId}"]`);
     await card.getByRole('heading').waitFor();
-    expect(await card.getByText('Follow your local codes and trained practice.').isVisible()).toBe(true);
+    expect(await card.getByText("Also follow this cooker's safety notes above.").isVisible()).toBe(true);
     await shot('today-offline.png');
 
-    await card.getByRole('button', { name: 'Done' }).click();
+    await card.getByRole('button', { name: 'Mark done' }).click();
     await page.getByText('1 entry waiting to be sent').waitFor();
     await page.getByText(/^Saved on this phone; it will be sent when the connection returns\.$/).first().waitFor();
     expect(await count(CheckInSchema, { kitchen: w.kitchenA.id, batchId, kind: 'done' })).toBe(0);
