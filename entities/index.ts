@@ -34,7 +34,7 @@ export * from './cooker';
 export * from './dish';
 export * from './menu-line';
 export * from './plan';
-export * from './plan-records';
+export * from '@/lib/plan-records';
 export * from './forecast';
 export * from './forecast-point';
 export * from './check-in';

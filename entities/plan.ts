@@ -2,7 +2,8 @@ import { EntitySchema } from '@mikro-orm/core';
 import { baseProperties, type Base } from './base';
 import type { Kitchen } from './kitchen';
 import type { User } from './user';
-import { planCookerSchema, planFuelSchema, planRecordType, storedBatchSchema, storedResultSchema, type PlanCookerView, type PlanFuelView, type StoredBatch, type StoredResult } from './plan-records';
+import { planCookerSchema, planFuelSchema, storedBatchSchema, storedResultSchema, type PlanCookerView, type PlanFuelView, type StoredBatch, type StoredResult } from '@/lib/plan-records';
+import { planRecordType } from './plan-record-type';
 
 export const PLAN_STATUSES = ['draft', 'published', 'superseded'] as const;
 export type PlanStatus = (typeof PLAN_STATUSES)[number];

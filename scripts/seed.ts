@@ -3,7 +3,7 @@ import { MikroORM } from '@mikro-orm/postgresql';
 import config from '../mikro-orm.config';
 import { KitchenSchema } from '../entities';
 import { seedDemo, seedDemoPlans, DEMO_ORG } from '../lib/demo/seed';
-import { stopBossClient } from '../lib/jobs/client';
+import { stopBossClient } from '../lib/queues/client';
 
 if (process.env.HEARTHCAST_DEMO !== '1') {
   console.error('[seed] demo data loads only in demo mode: set HEARTHCAST_DEMO=1 (npm start does by default).');

@@ -1,5 +1,5 @@
 /** The background worker: pg-boss queues on the app database. Stateless; run as many as you like. */
-import { startBoss, QUEUES } from '../lib/jobs/boss';
+import { startBoss, QUEUES } from '../lib/queues/boss';
 import { registerWorkers } from '../lib/jobs/worker';
 import { reconcileAlerts } from '../lib/alerts/handlers';
 import { closeOrm, getEm } from '../lib/db';

@@ -1,7 +1,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type PgBoss from 'pg-boss';
 import { AlertJobSchema, KitchenSchema, PushSubscriptionSchema, type Kitchen } from '@/entities';
-import { QUEUES } from '@/lib/jobs/boss';
+import { QUEUES } from '@/lib/queues/boss';
 import { kitchenDate, loadMarks } from '@/lib/plans/day';
 import { getPublishedPlan } from '@/lib/plans/queries';
 import { audienceSubscriptions } from '@/lib/push/subscriptions';
@@ -9,7 +9,7 @@ import { ALERT_TTL_S, alertPayload } from '@/lib/push/messages';
 import { sendWebPush, type PushOutcome, type PushPayload } from '@/lib/push/send';
 import { getVapidKeys } from '@/lib/push/vapid';
 import { pushAgent } from '@/lib/push/agent';
-import { pruneRateCounters } from '@/lib/cooks/rate-limit';
+import { pruneRateLimits } from '@/lib/rate-limit';
 import { addDays } from '@/lib/time';
 import { rescheduleKitchenAlerts, type Clock } from './schedule';
 
@@ -112,7 +112,7 @@ export async function handlePushJob(
 
 /** Hourly clean-up: old rate counters, idempotency records a phone will not retry any more, old alert rows. */
 export async function handleHousekeeping(em: EntityManager): Promise<{ counters: number; idempotency: number; alerts: number }> {
-  const counters = await pruneRateCounters(em);
+  const counters = await pruneRateLimits(em);
   const idem = await em.execute<{ id: string }[]>(`delete from idempotency_records where created_at < now() - interval '14 days' returning id`);
   const alerts = await em.execute<{ id: string }[]>(`delete from alert_jobs where fire_at < now() - interval '30 days' returning id`);
   return { counters, idempotency: idem.length, alerts: alerts.length };

@@ -1,6 +1,6 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { Kitchen } from '@/entities';
-import { getBossClient } from '@/lib/jobs/client';
+import { getBossClient } from '@/lib/queues/client';
 import { rescheduleKitchenAlerts, type Clock, type ScheduleSummary } from './schedule';
 
 /**

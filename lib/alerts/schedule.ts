@@ -14,7 +14,7 @@ import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type PgBoss from 'pg-boss';
 import { AlertJobSchema, type AlertJob, type Kitchen } from '@/entities';
-import { QUEUES } from '@/lib/jobs/boss';
+import { QUEUES } from '@/lib/queues/boss';
 import { kitchenDate, loadKitchenDayWithPlan } from '@/lib/plans/day';
 import { chooseLeadAlertsNow, choosePredictedSmokeAlerts, chooseReadyAlerts, type DesiredAlert } from './choose';
 

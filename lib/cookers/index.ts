@@ -7,10 +7,8 @@ import { recordAudit } from '@/lib/audit';
 import { notFound, unprocessable } from '@/lib/http/errors';
 import { getMedium, listMedia } from '@/lib/materials';
 import type { CookerInput } from '@/lib/validations/cookers';
-import { predictDay } from '@/lib/prediction/predict-day';
-import { getWeatherForDay, kitchenSite, weatherMeta } from '@/lib/forecast/weather-for-day';
 import { addDays, localDateString } from '@/lib/time';
-import { normalisePots, toApertureGeometry, toCookerSpec } from './spec';
+import { normalisePots } from './spec';
 
 export { toApertureGeometry, toCookerSpec } from './spec';
 export { cookerMedium } from './medium';
@@ -116,25 +114,6 @@ export async function archiveCooker(access: KitchenAccess, cookerId: string) {
 /** Tomorrow (in the kitchen's zone) unless a date is given. */
 export function defaultPredictionDate(kitchen: Kitchen, now = Date.now()): string {
   return addDays(localDateString(now, kitchen.timeZone), 1);
-}
-
-/**
- * A cooker's predicted day on the weather the fallback chain picks (forecast, stale forecast, upload or clear
- * sky × the kitchen's monthly clear-sky index; lib/forecast getWeatherForDay), with its source and age.
- */
-export async function predictCookerDay(em: EntityManager, kitchen: Kitchen, cooker: Cooker, date: string, initialStoreTempC?: number) {
-  const weather = await getWeatherForDay(em, kitchen, date);
-  return predictDay({
-    site: kitchenSite(kitchen),
-    timeZone: kitchen.timeZone,
-    date,
-    spec: toCookerSpec(cooker, cooker.customMedium),
-    geometry: toApertureGeometry(cooker),
-    hourly: weather.hourly,
-    weather: weatherMeta(weather),
-    clearness: weather.clearness.values,
-    ...(initialStoreTempC !== undefined ? { initialStoreTempC } : {}),
-  });
 }
 
 /** Built-in media and the organisation's custom ones, for the cooker form. */

@@ -1,5 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { consumeOrThrow, pruneRateLimits } from '@/lib/rate-limit';
+import { consumeOrThrow } from '@/lib/rate-limit';
 
 /**
  * Sensor requests per API key, counted in PostgreSQL (`lib/rate-limit.ts`): at most `limit` per window of
@@ -8,6 +8,3 @@ import { consumeOrThrow, pruneRateLimits } from '@/lib/rate-limit';
 export async function enforceRateLimit(em: EntityManager, key: string, limit: number, windowS: number): Promise<void> {
   await consumeOrThrow(em, { name: 'sensor', points: limit, durationS: windowS }, key, (retryAfterS) => `More than ${limit} requests in ${windowS} s with this key; try again in ${retryAfterS} s.`);
 }
-
-/** Drops counters of windows that ended long ago (worker housekeeping). */
-export const pruneRateCounters = pruneRateLimits;

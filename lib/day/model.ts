@@ -5,7 +5,7 @@
  * no clock of its own. The cook's Today page, the alert scheduler and the coordinator's overview all
  * read the day through `buildKitchenDay`; `lib/plans/day.ts` loads its inputs.
  */
-import type { PlanCookerView, PlanFuelView, StoredBatch, StoredResult } from '@/entities/plan-records';
+import type { PlanCookerView, PlanFuelView, StoredBatch, StoredResult } from '@/lib/plan-records';
 import { SMOKE_POINT_WARNING_MARGIN_K, type SafetyNote } from '@/lib/safety/notes';
 import { slotSafetyNotes } from '@/lib/safety/plan-notes';
 import { storeTempAt, type Reprediction } from './repredict';

@@ -2,7 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import type PgBoss from 'pg-boss';
 import { getEm } from '@/lib/db';
 import { handleAlertJob, handleHousekeeping, handlePushJob, type AlertJobData, type PushJobData, type PushRetryPolicy } from '@/lib/alerts/handlers';
-import { QUEUES } from './boss';
+import { QUEUES } from '@/lib/queues/boss';
 import { forecastRefreshCron, handleForecastRefresh, type ForecastRefreshData } from './forecast-refresh';
 
 export interface HeartbeatData {

@@ -1,4 +1,4 @@
-import type { StoredBatch } from '@/entities/plan-records';
+import type { StoredBatch } from '@/lib/plan-records';
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { DishSchema, MenuLineSchema, type Cooker, type Dish, type Kitchen, type MenuLine } from '@/entities';

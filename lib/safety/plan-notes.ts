@@ -2,7 +2,7 @@
  * The safety notes of every slot of a stored plan: from the dish's method, the cooker's store medium
  * and the store's predicted peak during the slot (lib/safety/notes.ts chooses and explains the rules).
  */
-import type { PlanCookerView, StoredBatch, StoredResult } from '@/entities/plan-records';
+import type { PlanCookerView, StoredBatch, StoredResult } from '@/lib/plan-records';
 import { meltingRangeForMediumName, safetyNotesForSlot, type SafetyNote } from './notes';
 
 /** Before and after a slot, the store's predicted peak is looked for this much further [ms]. */

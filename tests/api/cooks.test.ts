@@ -6,7 +6,7 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CheckInSchema, CookerSchema, ReadingSchema, AlertJobSchema } from '../../entities';
-import { stopBossClient } from '../../lib/jobs/client';
+import { stopBossClient } from '../../lib/queues/client';
 import { Client } from '../helpers/http';
 import { closeTestOrm, createWorld, PASSWORD, testOrm, type World } from '../helpers/fixtures';
 import { makeSubscription, publishPlanFor } from '../helpers/cooks';

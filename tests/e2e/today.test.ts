@@ -9,7 +9,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { CheckInSchema, ReadingSchema } from '../../entities';
-import { stopBossClient } from '../../lib/jobs/client';
+import { stopBossClient } from '../../lib/queues/client';
 import { launchBrowser, SCREENSHOT_DIR } from '../helpers/browser';
 import { closeTestOrm, createWorld, PASSWORD, testOrm, type World } from '../helpers/fixtures';
 import { publishPlanFor, waitUntil } from '../helpers/cooks';

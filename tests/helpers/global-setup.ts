@@ -71,7 +71,7 @@ export default async function setup(project: TestProject) {
   const em = orm.em.fork();
   const kitchens = await em.find(KitchenSchema, { id: { $in: Object.values(demo.kitchens).map((k) => k.id) } }, { populate: ['organisation'] });
   await seedDemoPlans(em, Object.fromEntries(Object.entries(demo.kitchens).map(([slug, k]) => [slug, kitchens.find((x) => x.id === k.id)!])), { timeLimitS: 1 });
-  await (await import('../../lib/jobs/client')).stopBossClient();
+  await (await import('../../lib/queues/client')).stopBossClient();
   // Failed sign-ins count for 15 minutes (lib/auth/throttle.ts): left over from a run a few minutes
   // ago, they would make the fixed addresses of the throttling tests answer 429 too early.
   await orm.em.getConnection().execute('delete from rate_limits');

@@ -135,7 +135,7 @@ describe('through pg-boss', () => {
   });
 
   it('a job sent twice stores one forecast; the queue retries with back-off', async () => {
-    const { startBoss, QUEUES } = await import('../../lib/jobs/boss');
+    const { startBoss, QUEUES } = await import('../../lib/queues/boss');
     const { registerWorkers } = await import('../../lib/jobs/worker');
     boss = await startBoss(inject('databaseUrl'));
     const queue = await boss.getQueue(QUEUES.forecastRefresh);

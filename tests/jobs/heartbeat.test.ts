@@ -4,7 +4,7 @@
  */
 import type PgBoss from 'pg-boss';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { QUEUES, startBoss } from '../../lib/jobs/boss';
+import { QUEUES, startBoss } from '../../lib/queues/boss';
 import { handleHeartbeat, registerWorkers, type HeartbeatData } from '../../lib/jobs/worker';
 
 let boss: PgBoss;

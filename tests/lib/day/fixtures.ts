@@ -3,7 +3,7 @@
  * dish), one on backup fuel. Times are epoch ms on an invented day (UTC kitchen).
  */
 import type { DayInputs, DayPlan } from '@/lib/day/model';
-import type { StoredBatch } from '@/entities/plan-records';
+import type { StoredBatch } from '@/lib/plan-records';
 
 export const H = 3_600_000;
 export const DAY0 = Date.UTC(2026, 11, 10);

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { numberInCookingOrder } from '@/lib/plans/views';
-import { PlanRecordError, storedResultSchema } from '@/entities/plan-records';
+import { PlanRecordError, storedResultSchema } from '@/lib/plan-records';
 
 describe('numberInCookingOrder', () => {
   it('numbers the batches of one line by start time; backup batches come last in menu order', () => {

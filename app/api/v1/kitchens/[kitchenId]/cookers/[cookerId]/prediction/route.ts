@@ -1,7 +1,8 @@
 import type { NextRequest } from 'next/server';
 import { json, parseQuery, route } from '@/lib/http/handler';
 import { requireKitchen } from '@/lib/auth/guard';
-import { defaultPredictionDate, getCooker, predictCookerDay } from '@/lib/cookers';
+import { defaultPredictionDate, getCooker } from '@/lib/cookers';
+import { predictCookerDay } from '@/lib/plans/cooker-day';
 import { predictionQuerySchema } from '@/lib/validations/cookers';
 
 type P = { kitchenId: string; cookerId: string };

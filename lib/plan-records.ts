@@ -1,11 +1,10 @@
 /**
  * The stored shape of a plan's JSON columns (batches, result, fuel, cookers): one zod schema each,
- * parsed once where a row leaves the database (`PlanRecordType` below), so the rest of the app works
+ * parsed once where a row leaves the database (entities/plan-record-type.ts), so the rest of the app works
  * with typed records and a row that does not match is a clear error at load, not a crash three calls
  * later. lib/plans checks at compile time that what the planner and the fuel estimate return fits
  * these shapes (lib/plans/records.ts).
  */
-import { JsonType, type Platform, type TransformContext } from '@mikro-orm/core';
 import { z } from 'zod';
 
 const COOK_METHODS = ['boil', 'simmer', 'steam', 'bake', 'fry'] as const;
@@ -127,17 +126,3 @@ export class PlanRecordError extends Error {
   }
 }
 
-/**
- * The type of a JSON column whose value is parsed with a zod schema when it is read. A class of its
- * own per column, with no constructor arguments: the ORM makes its own instances of a property's type.
- */
-export function planRecordType<T>(schema: z.ZodType<T>, column: string) {
-  return class PlanRecordType extends JsonType {
-    override convertToJSValue(value: unknown, platform: Platform, context?: TransformContext): T {
-      const raw = super.convertToJSValue(value, platform, context);
-      const r = schema.safeParse(raw);
-      if (!r.success) throw new PlanRecordError(column, r.error.issues);
-      return r.data;
-    }
-  };
-}
