@@ -20,7 +20,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'integration',
-          include: ['tests/{api,db,e2e,jobs}/**/*.test.ts'],
+          include: ['tests/{api,e2e,jobs}/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/helpers/global-setup.ts'],
           testTimeout: 60_000,
