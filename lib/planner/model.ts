@@ -238,6 +238,26 @@ export function nextShiftStart(m: PModel, t: number): number {
   return Infinity;
 }
 
+/**
+ * The grid starts a batch may take on a cooker, in time order: from its earliest start (or the
+ * weather's first step) while its hold still fits before serve-by and the weather's end, skipping the
+ * time between shifts. Each comes with the latest end the shift, serve-by and weather allow [ms].
+ */
+export function* gridStartsInShifts(m: PModel, c: Pick<PCooker, 't0' | 'tEnd'>, b: Pick<PBatch, 'earliest' | 'serveBy' | 'holdMs'>): Generator<{ s: number; maxEnd: number }> {
+  let s = ceilToGrid(Math.max(b.earliest, c.t0), m.slotMs);
+  while (s + b.holdMs <= Math.min(b.serveBy, c.tEnd)) {
+    const se = shiftEndAt(m, s);
+    if (se < 0) {
+      const nx = nextShiftStart(m, s);
+      if (nx === Infinity) return;
+      s = ceilToGrid(nx, m.slotMs);
+      continue;
+    }
+    yield { s, maxEnd: Math.min(b.serveBy, se, c.tEnd) };
+    s += m.slotMs;
+  }
+}
+
 export function ceilToGrid(t: number, slotMs: number): number {
   return Math.ceil(t / slotMs) * slotMs;
 }

@@ -20,7 +20,7 @@
 import { boilingPointAtAltitudeC as boilingPointAtAltitude, WATER_CP_J_PER_KG_K } from '@/lib/thermal/boiling';
 import type { WeatherStep } from '@/lib/thermal/types';
 import type { PotScreen } from './screen';
-import { ceilToGrid, nextShiftStart, shiftEndAt, type CookerEvaluator, type PBatch, type PCooker, type PModel } from './model';
+import { gridStartsInShifts, type CookerEvaluator, type PBatch, type PCooker, type PModel } from './model';
 import { STEP_MS } from './validate';
 
 /** Sparse table for O(1) range maxima over a store trajectory. */
@@ -141,20 +141,11 @@ export function buildRelaxation(m: PModel, evals: CookerEvaluator[], screens: Po
         }
         anyFit = true;
         // Any grid start inside a shift with room for the hold?
-        let s = ceilToGrid(Math.max(b.earliest, c.t0), m.slotMs);
         let shiftOk = false;
         let ok = false;
         let d = -1;
         const rm = noLoadMax[c.idx] as RangeMax;
-        while (s + b.holdMs <= Math.min(b.serveBy, c.tEnd)) {
-          const se = shiftEndAt(m, s);
-          if (se < 0) {
-            const nx = nextShiftStart(m, s);
-            if (nx === Infinity) break;
-            s = ceilToGrid(nx, m.slotMs);
-            continue;
-          }
-          const maxEnd = Math.min(b.serveBy, se, c.tEnd);
+        for (const { s, maxEnd } of gridStartsInShifts(m, c, b)) {
           if (maxEnd - s >= b.holdMs) {
             shiftOk = true;
             const i0 = Math.round((s - c.t0) / STEP_MS);
@@ -176,7 +167,6 @@ export function buildRelaxation(m: PModel, evals: CookerEvaluator[], screens: Po
               }
             }
           }
-          s += m.slotMs;
         }
         if (shiftOk) anyShift = true;
         pc.push(ok);

@@ -7,7 +7,7 @@
  * that passes the necessary tests was simulated with the full simulator and failed; 'not-placed' when
  * one of them works (the search stopped before it found it).
  */
-import { ceilToGrid, insertLoad, nextShiftStart, shiftEndAt, type CookerEvaluator, type Evaluation, type Load, type LoadOut, type PBatch, type PCooker, type PModel } from './model';
+import { gridStartsInShifts, insertLoad, type CookerEvaluator, type Evaluation, type Load, type LoadOut, type PBatch, type PCooker, type PModel } from './model';
 import type { Relaxation } from './relaxation';
 import type { PotScreen } from './screen';
 import { placedOf, Search, type State } from './search';
@@ -139,16 +139,9 @@ export interface FreeWindow {
  */
 export function freeWindows(m: PModel, c: PCooker, ev: Evaluation, p: number, b: PBatch): FreeWindow[] {
   const out: FreeWindow[] = [];
-  let s = ceilToGrid(Math.max(b.earliest, c.t0), m.slotMs);
-  while (s + b.holdMs <= Math.min(b.serveBy, c.tEnd)) {
-    const se = shiftEndAt(m, s);
-    if (se < 0) {
-      const nx = nextShiftStart(m, s);
-      if (nx === Infinity) break;
-      s = ceilToGrid(nx, m.slotMs);
-      continue;
-    }
-    let maxEnd = Math.min(b.serveBy, se, c.tEnd);
+  for (const start of gridStartsInShifts(m, c, b)) {
+    const s = start.s;
+    let maxEnd = start.maxEnd;
     let free = true;
     ev.loads.forEach((l, j) => {
       if (l.p !== p) return;
@@ -157,7 +150,6 @@ export function freeWindows(m: PModel, c: PCooker, ev: Evaluation, p: number, b:
       if (l.s > s) maxEnd = Math.min(maxEnd, l.s - m.turnMs);
     });
     if (free && s + b.holdMs <= maxEnd) out.push({ c: c.idx, p, s, maxEnd });
-    s += m.slotMs;
   }
   return out;
 }
