@@ -3,8 +3,7 @@
 import { useLocale, useTranslations } from 'next-intl';
 import { useRouter } from 'next/navigation';
 import { useId, useTransition } from 'react';
-
-const NAMES = { en: 'English', fr: 'Français' } as const;
+import { LANGUAGE_NAMES as NAMES, saveLanguage } from '@/lib/client/language';
 
 /** Switches the interface language; saved in a cookie and, when signed in, on the account. */
 export function LanguagePicker({ signedIn }: { signedIn: boolean }) {
@@ -25,11 +24,8 @@ export function LanguagePicker({ signedIn }: { signedIn: boolean }) {
         disabled={pending}
         onChange={(e) => {
           const next = e.target.value;
-          document.cookie = `hc_locale=${next}; path=/; max-age=31536000; samesite=lax`;
           start(async () => {
-            if (signedIn) {
-              await fetch('/api/v1/me', { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ locale: next }) }).catch(() => undefined);
-            }
+            await saveLanguage(next, signedIn);
             router.refresh();
           });
         }}

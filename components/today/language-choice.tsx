@@ -1,9 +1,8 @@
 'use client';
 
 import { useId, useState } from 'react';
+import { LANGUAGE_NAMES as NAMES, saveLanguage } from '@/lib/client/language';
 import { useTranslations } from '../mini-intl';
-
-const NAMES = { en: 'English', fr: 'Français' } as const;
 
 /** The cook's language picker: saved on the account and in the browser, then the page reloads in it. */
 export function LanguageChoice({ locale }: { locale: string }) {
@@ -23,8 +22,7 @@ export function LanguageChoice({ locale }: { locale: string }) {
         onChange={async (e) => {
           const next = e.target.value;
           setBusy(true);
-          document.cookie = `hc_locale=${next}; path=/; max-age=31536000; samesite=lax`;
-          await fetch('/api/v1/me', { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ locale: next }) }).catch(() => undefined);
+          await saveLanguage(next, true);
           location.reload();
         }}
       >
